@@ -1,0 +1,90 @@
+import 'reflect-metadata';
+import './http/actor.js';
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import session from 'express-session';
+import MySQLStoreFactory from 'express-mysql-session';
+import { pinoHttp } from 'pino-http';
+import type { AppDeps } from './deps.js';
+import { buildRouter } from './http/route-table.js';
+import { csrfCheck } from './middleware/csrf.js';
+import { errorHandler, notFoundHandler } from './middleware/error-handler.js';
+import { loadActor } from './middleware/load-actor.js';
+import { apiRoutes } from './routes/index.js';
+
+const ROOT = path.resolve(import.meta.dirname, '..');
+
+/** Builds the Express app; never listens (server/index.ts does, tests use supertest). */
+export function createApp(deps: AppDeps): Express {
+  const { config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      hsts: config.secureCookies ? { maxAge: 31536000, includeSubDomains: true } : false,
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+
+  const MySQLStore = MySQLStoreFactory(session as never);
+  const store = new MySQLStore({
+    host: config.db.host,
+    port: config.db.port,
+    user: config.db.user,
+    password: config.db.password,
+    database: config.db.database,
+    createDatabaseTable: false,
+    clearExpired: true,
+    checkExpirationInterval: 15 * 60 * 1000,
+    connectionLimit: 10,
+  } as never);
+  deps.services.sessionStore = store;
+
+  const api = express.Router();
+  // Raw bodies for signed webhooks are read by their own route; everything else is JSON.
+  api.use((req, res, next) => (req.path.startsWith('/billing/webhook') ? next() : express.json({ limit: '2mb' })(req, res, next)));
+  api.use(
+    session({
+      name: 'wm.sid',
+      secret: config.sessionSecret,
+      store: store as never,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 1000 * 60 * 60 * 12 },
+    }),
+  );
+  api.use(loadActor(deps.dataSource));
+  api.use(buildRouter(apiRoutes(deps), csrfCheck));
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  const fonts = path.join(ROOT, 'fonts');
+  app.use('/fonts', express.static(fonts, { maxAge: '30d', immutable: true }));
+  const dist = path.join(ROOT, 'dist');
+  if (fs.existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

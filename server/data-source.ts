@@ -1,0 +1,28 @@
+import 'reflect-metadata';
+import { DataSource } from 'typeorm';
+import { loadConfig, type Config } from './config.js';
+import { entities } from './entities/index.js';
+import { migrations } from './migrations/index.js';
+
+/** Builds the TypeORM DataSource for MariaDB. Schema changes only through migrations. */
+export function createDataSource(db: Config['db'] = loadConfig().db): DataSource {
+  return new DataSource({
+    type: 'mysql',
+    host: db.host,
+    port: db.port,
+    username: db.user,
+    password: db.password,
+    database: db.database,
+    charset: 'utf8mb4_unicode_ci',
+    timezone: 'Z',
+    entities,
+    migrations: migrations as never,
+    synchronize: false,
+    migrationsRun: false,
+    logging: false,
+    extra: { connectionLimit: 20, connectTimeout: 5000, enableKeepAlive: true },
+  });
+}
+
+/** The one export the TypeORM CLI needs (`npx tsx node_modules/typeorm/cli.js -d server/data-source.ts`). */
+export const AppDataSource = createDataSource();

@@ -1,0 +1,57 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+import { HttpError } from '../http/errors.js';
+
+const DB_DOWN_CODES = new Set([
+  'ECONNREFUSED', 'ECONNRESET', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'EPIPE',
+  'ER_SERVER_SHUTDOWN', 'ER_CON_COUNT_ERROR', 'PROTOCOL_SEQUENCE_TIMEOUT', 'ENOTCONN',
+]);
+
+/** True when an error means the database (or another backing service) is unreachable. */
+export function isServiceDown(err: unknown): boolean {
+  const e = err as { code?: string; driverError?: { code?: string }; cause?: { code?: string } };
+  const code = e?.code ?? e?.driverError?.code ?? e?.cause?.code;
+  return typeof code === 'string' && DB_DOWN_CODES.has(code);
+}
+
+/** Turns zod issues into `{ field: message }` for forms. */
+export function zodFields(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of err.issues) {
+    const key = issue.path.join('.') || '_';
+    if (!fields[key]) fields[key] = issue.message;
+  }
+  return fields;
+}
+
+export const notFoundHandler: RequestHandler = (req, res) => {
+  res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}.` } });
+};
+
+/** The one error handler: known errors keep their status; nothing internal reaches the client. */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (res.headersSent) return;
+  let status = 500;
+  let body: { code: string; message: string; fields?: Record<string, string> };
+  if (err instanceof HttpError) {
+    status = err.status;
+    body = { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) };
+  } else if (err instanceof ZodError) {
+    status = 422;
+    body = { code: 'validation_failed', message: 'Some fields need attention.', fields: zodFields(err) };
+  } else if (err?.type === 'entity.parse.failed') {
+    status = 400;
+    body = { code: 'bad_json', message: 'The request body is not valid JSON.' };
+  } else if (err?.type === 'entity.too.large') {
+    status = 413;
+    body = { code: 'too_large', message: 'The request body is too large.' };
+  } else if (isServiceDown(err)) {
+    status = 503;
+    body = { code: 'unavailable', message: 'The database is not reachable right now. Please try again in a moment.' };
+  } else {
+    body = { code: 'internal', message: 'Something went wrong on our side. The error was logged.' };
+  }
+  if (status >= 500) req.log?.error({ err }, 'request failed');
+  else req.log?.info({ code: body.code, status }, 'request refused');
+  res.status(status).json({ error: body });
+};

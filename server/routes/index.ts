@@ -1,0 +1,11 @@
+import type { AppDeps } from '../deps.js';
+import type { RouteSpec } from '../http/route-table.js';
+import { healthRoutes } from './health.routes.js';
+
+/**
+ * The whole API as one table. Each module contributes its RouteSpecs; append new modules here.
+ * The role × route test reads this same table.
+ */
+export function apiRoutes(deps: AppDeps): RouteSpec[] {
+  return [...healthRoutes(deps)];
+}
