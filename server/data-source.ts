@@ -7,7 +7,7 @@ import { migrations } from './migrations/index.js';
 /** Builds the TypeORM DataSource for MariaDB. Schema changes only through migrations. */
 export function createDataSource(db: Config['db'] = loadConfig().db): DataSource {
   return new DataSource({
-    type: 'mysql',
+    type: 'mariadb',
     host: db.host,
     port: db.port,
     username: db.user,

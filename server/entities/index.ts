@@ -1,10 +1,19 @@
+import { Audit } from './audit.entity.js';
+import { Candidate } from './candidate.entity.js';
 import { Invitation } from './invitation.entity.js';
 import { MailLog } from './mail-log.entity.js';
+import { MapProject } from './map-project.entity.js';
 import { Membership } from './membership.entity.js';
+import { ProjectAccess } from './project-access.entity.js';
+import { Region } from './region.entity.js';
+import { Scorecard } from './scorecard.entity.js';
 import { Studio } from './studio.entity.js';
 import { User } from './user.entity.js';
 
 /** Every entity, listed explicitly (globs break under vitest). Append new ones here. */
-export const entities = [Studio, User, Membership, Invitation, MailLog];
+export const entities = [
+  Studio, User, Membership, Invitation, MailLog,
+  MapProject, ProjectAccess, Region, Candidate, Audit, Scorecard,
+];
 
-export { Invitation, MailLog, Membership, Studio, User };
+export { Audit, Candidate, Invitation, MailLog, MapProject, Membership, ProjectAccess, Region, Scorecard, Studio, User };
