@@ -1,0 +1,121 @@
+import type { JacobianRad } from './jacobian-numeric';
+import type { Proj4Projection } from './proj4-object';
+
+/**
+ * Closed-form Jacobians (∂x/∂λ, ∂y/∂λ, ∂x/∂φ, ∂y/∂φ, metres per radian) for families whose forward
+ * equations differentiate simply, built from the constants proj4 derived for the definition so
+ * that they describe exactly the map proj4 draws. Returns undefined for other families.
+ *
+ * Mercator: x = a k₀ λ, y = a k₀ ψ(φ), dψ/dφ = (1 − e²)/((1 − e² sin²φ) cos φ) (Snyder 1987, eqs. 7-2, 7-7).
+ * Cylindrical equal-area: x = a k₀ λ, y = a q/(2k₀), dq/dφ = 2(1 − e²) cos φ/(1 − e² sin²φ)² (eqs. 10-15, 3-12).
+ * Equirectangular: x = a λ cos φ_ts, y = a φ (eq. 12-1).
+ * Lambert conformal conic: ρ = a F tⁿ, dρ/dφ = −n ρ (1 − e²)/((1 − e² sin²φ) cos φ) (eqs. 15-7, 15-9).
+ * Albers: ρ = a √(C − n q)/n, dρ/dφ = −a (dq/dφ)/(2√(C − n q)) (eq. 14-12).
+ * For the conics θ = nΔλ, x = k₀ρ sin θ, y = k₀(ρ₀ − ρ cos θ).
+ * Example: for +proj=merc +R=1, ∂y/∂φ at φ = 60° is sec 60° = 2.
+ */
+export function analyticJacobian(family: string, p: Proj4Projection): JacobianRad | undefined {
+  const a = p.a;
+  const lon0 = p.long0 ?? 0;
+  const wrap = (dl: number) => (dl > Math.PI ? dl - 2 * Math.PI : dl < -Math.PI ? dl + 2 * Math.PI : dl);
+  switch (family) {
+    case 'merc': {
+      const es = p.sphere ? 0 : p.es;
+      const ak = a * (p.k0 ?? 1);
+      return (_lam, phi, out) => {
+        const sinPhi = Math.sin(phi);
+        out[0] = ak;
+        out[1] = 0;
+        out[2] = 0;
+        out[3] = (ak * (1 - es)) / ((1 - es * sinPhi * sinPhi) * Math.cos(phi));
+        return true;
+      };
+    }
+    case 'cea': {
+      const latTs = p.lat_ts ?? 0;
+      if (p.sphere) {
+        const c = Math.cos(latTs);
+        return (_lam, phi, out) => {
+          out[0] = a * c;
+          out[1] = 0;
+          out[2] = 0;
+          out[3] = (a * Math.cos(phi)) / c;
+          return true;
+        };
+      }
+      const es = p.es;
+      const k0 = p.k0 ?? 1;
+      return (_lam, phi, out) => {
+        const sinPhi = Math.sin(phi);
+        const w = 1 - es * sinPhi * sinPhi;
+        out[0] = a * k0;
+        out[1] = 0;
+        out[2] = 0;
+        out[3] = (a * (1 - es) * Math.cos(phi)) / (w * w * k0);
+        return true;
+      };
+    }
+    case 'eqc': {
+      const rc = Math.cos(p.lat_ts ?? 0);
+      return (_lam, _phi, out) => {
+        out[0] = a * rc;
+        out[1] = 0;
+        out[2] = 0;
+        out[3] = a;
+        return true;
+      };
+    }
+    case 'lcc': {
+      const n = p.ns as number;
+      const f0 = p.f0 as number;
+      const e = Math.sqrt(p.es);
+      const es = p.es;
+      const k0 = p.k0 ?? 1;
+      if (!Number.isFinite(n) || !Number.isFinite(f0) || n === 0) return undefined;
+      return (lam, phi, out) => {
+        const sinPhi = Math.sin(phi);
+        const cosPhi = Math.cos(phi);
+        const esp = e * sinPhi;
+        const t = Math.tan(0.5 * (Math.PI / 2 - phi)) / Math.pow((1 - esp) / (1 + esp), 0.5 * e);
+        const rho = a * f0 * Math.pow(t, n);
+        const dRho = (-n * rho * (1 - es)) / ((1 - es * sinPhi * sinPhi) * cosPhi);
+        return conicJacobian(k0 * rho, k0 * dRho, n, n * wrap(lam - lon0), out);
+      };
+    }
+    case 'aea': {
+      const n = p.ns0 as number;
+      const c = p.c as number;
+      const e = Math.sqrt(p.es);
+      const es = p.es;
+      if (!Number.isFinite(n) || !Number.isFinite(c) || n === 0) return undefined;
+      return (lam, phi, out) => {
+        const sinPhi = Math.sin(phi);
+        const cosPhi = Math.cos(phi);
+        let q: number;
+        if (e > 1e-7) {
+          const esp = e * sinPhi;
+          q = (1 - es) * (sinPhi / (1 - esp * esp) - (0.5 / e) * Math.log((1 - esp) / (1 + esp)));
+        } else q = 2 * sinPhi;
+        const w = 1 - es * sinPhi * sinPhi;
+        const dq = (2 * (1 - es) * cosPhi) / (w * w);
+        const root = Math.sqrt(c - n * q);
+        const rho = (a * root) / n;
+        const dRho = (-a * dq) / (2 * root);
+        return conicJacobian(rho, dRho, n, n * wrap(lam - lon0), out);
+      };
+    }
+    default:
+      return undefined;
+  }
+}
+
+/** Jacobian of x = ρ sin θ, y = ρ₀ − ρ cos θ with θ = nΔλ (Snyder 1987, eqs. 14-1, 14-2). */
+function conicJacobian(rho: number, dRho: number, n: number, theta: number, out: Float64Array): boolean {
+  const sinT = Math.sin(theta);
+  const cosT = Math.cos(theta);
+  out[0] = rho * n * cosT;
+  out[1] = rho * n * sinT;
+  out[2] = dRho * sinT;
+  out[3] = -dRho * cosT;
+  return Number.isFinite(rho) && Number.isFinite(dRho);
+}

@@ -1,0 +1,4 @@
+declare module 'epsg-index/all.json' {
+  const table: Record<string, unknown>;
+  export default table;
+}
