@@ -8,13 +8,19 @@ import type { AppDeps } from '../../server/deps.js';
 import type { CaughtMail } from '../../server/fakes/smtp.js';
 
 /** An app on this run's fresh database (see global-setup.ts), for supertest. */
-export async function createTestApp(): Promise<{ app: Express; deps: AppDeps; close: () => Promise<void> }> {
+export async function createTestApp(): Promise<{
+  app: Express;
+  deps: AppDeps;
+  dataSource: () => AppDeps['dataSource'];
+  close: () => Promise<void>;
+}> {
   const config = loadConfig();
   const deps = await bootstrap(config, pino({ level: process.env.LOG_LEVEL ?? 'silent' }));
   const app = createApp(deps);
   return {
     app,
     deps,
+    dataSource: () => deps.dataSource,
     close: async () => {
       const store = deps.services.sessionStore as { close?: () => Promise<void> } | undefined;
       await store?.close?.();
