@@ -1,0 +1,138 @@
+import { In, type DataSource } from 'typeorm';
+import type {
+  CreateProjectInput,
+  ListProjectsQuery,
+  ProjectView,
+  UpdateProjectInput,
+} from '../../shared/api/projects.schema.js';
+import { listProjectsQuerySchema } from '../../shared/api/projects.schema.js';
+import { isStaffRole } from '../../shared/api/roles.js';
+import { Audit, Candidate, MapProject, ProjectAccess, Region } from '../entities/index.js';
+import type { Actor } from '../http/actor.js';
+import { loadProjectFor } from './project-guard.js';
+
+/** Per-project figures shown beside a project in lists and on its page. */
+interface ProjectExtras {
+  region: ProjectView['region'];
+  candidateCount: number;
+  auditCount: number;
+}
+
+const toView = (p: MapProject, x: ProjectExtras): ProjectView => ({
+  id: p.id,
+  title: p.title,
+  clientName: p.clientName,
+  purpose: p.purpose,
+  scaleBand: p.scaleBand,
+  status: p.status,
+  notes: p.notes,
+  createdAt: p.createdAt.toISOString(),
+  updatedAt: p.updatedAt.toISOString(),
+  ...x,
+});
+
+/**
+ * Loads the current region and the candidate/audit counts of many projects in three queries
+ * (whatever their number), so a list never issues one query per row.
+ */
+async function extrasFor(ds: DataSource, studioId: number, ids: number[]): Promise<Map<number, ProjectExtras>> {
+  const out = new Map<number, ProjectExtras>(ids.map((id) => [id, { region: null, candidateCount: 0, auditCount: 0 }]));
+  if (!ids.length) return out;
+  const [regions, candidates, audits] = await Promise.all([
+    ds.getRepository(Region).find({
+      select: { id: true, projectId: true, name: true, areaKm2: true },
+      where: { studioId, projectId: In(ids), isCurrent: true },
+    }),
+    countBy(ds, Candidate, studioId, ids),
+    countBy(ds, Audit, studioId, ids),
+  ]);
+  for (const r of regions) out.get(r.projectId)!.region = { id: r.id, name: r.name, areaKm2: r.areaKm2 };
+  for (const [id, n] of candidates) out.get(id)!.candidateCount = n;
+  for (const [id, n] of audits) out.get(id)!.auditCount = n;
+  return out;
+}
+
+async function countBy(
+  ds: DataSource,
+  entity: typeof Candidate | typeof Audit,
+  studioId: number,
+  ids: number[],
+): Promise<Map<number, number>> {
+  const rows: { projectId: number; n: string | number }[] = await ds
+    .getRepository(entity)
+    .createQueryBuilder('t')
+    .select('t.projectId', 'projectId')
+    .addSelect('COUNT(*)', 'n')
+    .where('t.studioId = :studioId AND t.projectId IN (:...ids)', { studioId, ids })
+    .groupBy('t.projectId')
+    .getRawMany();
+  return new Map(rows.map((r) => [Number(r.projectId), Number(r.n)]));
+}
+
+/** Escapes LIKE wildcards so a search for "50%" means the characters, not a pattern. */
+const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+/**
+ * The studio's projects the actor may see (clients: only those shared with them), searched by
+ * title, client name or notes, filtered by status and purpose, sorted.
+ */
+export async function listProjects(ds: DataSource, actor: Actor, query: ListProjectsQuery): Promise<ProjectView[]> {
+  const q = listProjectsQuerySchema.parse(query);
+  const qb = ds.getRepository(MapProject).createQueryBuilder('p').where('p.studioId = :studioId', { studioId: actor.studioId });
+  if (!isStaffRole(actor.role)) {
+    qb.innerJoin(ProjectAccess, 'pa', 'pa.projectId = p.id AND pa.userId = :userId', { userId: actor.userId });
+  }
+  if (q.q) {
+    qb.andWhere('(p.title LIKE :q OR p.clientName LIKE :q OR p.notes LIKE :q)', { q: `%${likeEscape(q.q)}%` });
+  }
+  if (q.status) qb.andWhere('p.status = :status', { status: q.status });
+  if (q.purpose) qb.andWhere('p.purpose = :purpose', { purpose: q.purpose });
+  const column = { updated: 'p.updatedAt', title: 'p.title', status: 'p.status' }[q.sort];
+  const dir = (q.dir ?? (q.sort === 'updated' ? 'desc' : 'asc')).toUpperCase() as 'ASC' | 'DESC';
+  qb.orderBy(column, dir).addOrderBy('p.id', dir);
+  const projects = await qb.take(500).getMany();
+  const extras = await extrasFor(ds, actor.studioId, projects.map((p) => p.id));
+  return projects.map((p) => toView(p, extras.get(p.id)!));
+}
+
+/** One project with its figures; 404 when the actor may not see it. */
+export async function getProject(ds: DataSource, actor: Actor, projectId: number): Promise<ProjectView> {
+  const project = await loadProjectFor(ds, actor, projectId, 'read');
+  const extras = await extrasFor(ds, actor.studioId, [project.id]);
+  return toView(project, extras.get(project.id)!);
+}
+
+export async function createProject(ds: DataSource, actor: Actor, input: CreateProjectInput): Promise<ProjectView> {
+  const repo = ds.getRepository(MapProject);
+  const saved = await repo.save(
+    repo.create({
+      studioId: actor.studioId,
+      title: input.title,
+      clientName: input.clientName,
+      purpose: input.purpose,
+      scaleBand: input.scaleBand,
+      notes: input.notes || null,
+      status: 'draft',
+      createdById: actor.userId,
+    }),
+  );
+  const fresh = await repo.findOneByOrFail({ id: saved.id });
+  return toView(fresh, { region: null, candidateCount: 0, auditCount: 0 });
+}
+
+export async function updateProject(
+  ds: DataSource,
+  actor: Actor,
+  projectId: number,
+  input: UpdateProjectInput,
+): Promise<ProjectView> {
+  const project = await loadProjectFor(ds, actor, projectId, 'write');
+  const changes: Partial<MapProject> = {};
+  if (input.title !== undefined) changes.title = input.title;
+  if (input.clientName !== undefined) changes.clientName = input.clientName;
+  if (input.purpose !== undefined) changes.purpose = input.purpose;
+  if (input.scaleBand !== undefined) changes.scaleBand = input.scaleBand;
+  if (input.notes !== undefined) changes.notes = input.notes || null;
+  await ds.getRepository(MapProject).update({ id: project.id, studioId: actor.studioId }, changes);
+  return getProject(ds, actor, project.id);
+}
