@@ -9,11 +9,18 @@ import { Region } from './region.entity.js';
 import { Scorecard } from './scorecard.entity.js';
 import { Studio } from './studio.entity.js';
 import { User } from './user.entity.js';
+import { ActivityEvent } from './activity-event.entity.js';
+import { ProjectComment } from './comment.entity.js';
+import { ReviewRecipient } from './review-recipient.entity.js';
+import { ReviewRound } from './review-round.entity.js';
+import { SignOff } from './sign-off.entity.js';
 
 /** Every entity, listed explicitly (globs break under vitest). Append new ones here. */
 export const entities = [
   Studio, User, Membership, Invitation, MailLog,
   MapProject, ProjectAccess, Region, Candidate, Audit, Scorecard,
+  ReviewRound, ReviewRecipient, SignOff, ProjectComment, ActivityEvent,
 ];
 
 export { Audit, Candidate, Invitation, MailLog, MapProject, Membership, ProjectAccess, Region, Scorecard, Studio, User };
+export { ActivityEvent, ProjectComment, ReviewRecipient, ReviewRound, SignOff };
