@@ -133,6 +133,9 @@ export async function updateProject(
   if (input.purpose !== undefined) changes.purpose = input.purpose;
   if (input.scaleBand !== undefined) changes.scaleBand = input.scaleBand;
   if (input.notes !== undefined) changes.notes = input.notes || null;
-  await ds.getRepository(MapProject).update({ id: project.id, studioId: actor.studioId }, changes);
+  // Stamped by the database with milliseconds (TypeORM's own stamp here would drop them).
+  await ds
+    .getRepository(MapProject)
+    .update({ id: project.id, studioId: actor.studioId }, { ...changes, updatedAt: () => 'CURRENT_TIMESTAMP(3)' });
   return getProject(ds, actor, project.id);
 }
