@@ -10,7 +10,7 @@ import { resetMail } from '../mail/templates.js';
 
 /**
  * argon2id with OWASP's recommended minimum (Password Storage Cheat Sheet: m = 19 MiB,
- * t = 2, p = 1). The parameters are stored inside each hash (`$argon2id$v=19$m=19456,t=2,p=1$…`),
+ * t = 2, p = 1). The parameters are stored inside each hash (`$argon2id$v=19$m=19456,p=1,t=2$…`),
  * so raising them later only needs `needsRehash` at the next sign-in.
  */
 export const ARGON2_OPTIONS = { type: argon2.argon2id, memoryCost: 19456, timeCost: 2, parallelism: 1 } as const;
