@@ -29,6 +29,13 @@ export class ReviewRound {
   @Column({ type: 'json' })
   candidateIds: number[];
 
+  /**
+   * The shortlisted scorecards as sent (label, definitions, metrics), so the round reads the same
+   * later even if a candidate is edited or removed from the project afterwards.
+   */
+  @Column({ type: 'json' })
+  shortlist: unknown;
+
   /** Plain text with paragraphs and "- " lists; never rendered as HTML. */
   @Column({ type: 'text' })
   recommendation: string;
