@@ -29,5 +29,5 @@ fs.writeFileSync(
   path.join(OUT, 'README.md'),
   `# Fonts\n\nInter (variable weight 100–900), from @fontsource-variable/inter ${version}, subsets: ${SUBSETS.join(', ')}.\n` +
     'Licensed under the SIL Open Font License 1.1 (OFL.txt). Copied by `node server/scripts/copy-fonts.mjs`;\n' +
-    'served by the app at /fonts and declared in src/styles/fonts.css.\n',
+    'served by the app at /fonts and declared in fonts/inter.css (linked from index.html).\n',
 );

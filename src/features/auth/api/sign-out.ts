@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiRequest } from '@/lib/api-client.js';
+import { getSession, storeSession } from './get-session.js';
+
+export const signOut = () => apiRequest('/auth/sign-out', { method: 'POST' });
+
+/** Signs out, then fetches the anonymous session so the next sign-in has a valid CSRF token. */
+export function useSignOut() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: async () => {
+      await signOut();
+      return getSession();
+    },
+    onSuccess: (session) => storeSession(queryClient, session),
+  });
+}
