@@ -1,0 +1,36 @@
+import { parentPort } from 'node:worker_threads';
+import type { ResolvedDefinition } from '../../shared/engine/definition';
+import { allocFactorArrays, createFactorEvaluator, type FactorEvaluator } from '../../shared/engine/evaluator';
+import { createFactorLineProcessor, type FactorLinesResult } from './factor-lines';
+
+/** Messages the pool sends to a worker. */
+export type WorkerRequest =
+  | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
+  | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string };
+
+const evaluators = new Map<string, FactorEvaluator>();
+const lineProcessors = new Map<string, (text: string) => FactorLinesResult>();
+
+function handle(msg: WorkerRequest): void {
+  const key = msg.resolved.proj4;
+  try {
+    if (msg.kind === 'lines') {
+      let proc = lineProcessors.get(key);
+      if (!proc) lineProcessors.set(key, (proc = createFactorLineProcessor(msg.resolved)));
+      const result = proc(msg.text);
+      parentPort!.postMessage({ id: msg.id, ok: true, result }, [result.out.buffer as ArrayBuffer]);
+      return;
+    }
+    let ev = evaluators.get(key);
+    if (!ev) evaluators.set(key, (ev = createFactorEvaluator(msg.resolved)));
+    const out = allocFactorArrays(msg.lonDeg.length);
+    ev.factorsBatchDeg(msg.lonDeg, msg.latDeg, out);
+    const buffers = Object.values(out).map((a) => (a as Float64Array).buffer);
+    parentPort!.postMessage({ id: msg.id, ok: true, result: out }, buffers);
+  } catch (err) {
+    parentPort!.postMessage({ id: msg.id, ok: false, error: err instanceof Error ? err.message : String(err) });
+  }
+}
+
+parentPort!.on('message', handle);
+parentPort!.postMessage({ ready: true });

@@ -1,0 +1,108 @@
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import type { ResolvedDefinition } from '../../shared/engine/definition';
+import { allocFactorArrays, type FactorArrays } from '../../shared/engine/evaluator';
+import type { FactorLinesResult } from './factor-lines';
+import type { WorkerRequest } from './factors-worker';
+
+type Pending = { resolve: (v: unknown) => void; reject: (e: Error) => void };
+type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
+
+interface Slot {
+  worker: Worker;
+  busy: number;
+}
+
+/**
+ * A persistent pool of worker threads computing factors. Start it once (workers take
+ * 100–300 ms to boot) and reuse it for every job; close it when the process is done.
+ */
+export class FactorPool {
+  private nextId = 1;
+  private readonly pending = new Map<number, Pending>();
+
+  private constructor(private readonly slots: Slot[]) {
+    for (const slot of slots) {
+      slot.worker.on('message', (msg: { id: number; ok: boolean; result?: unknown; error?: string }) => {
+        const p = this.pending.get(msg.id);
+        if (!p) return;
+        this.pending.delete(msg.id);
+        slot.busy--;
+        if (msg.ok) p.resolve(msg.result);
+        else p.reject(new Error(msg.error));
+      });
+      slot.worker.on('error', (err) => {
+        for (const p of this.pending.values()) p.reject(err);
+        this.pending.clear();
+      });
+    }
+  }
+
+  /** Starts size workers (default: one per core) and resolves once all are ready. */
+  static async start(size = availableParallelism()): Promise<FactorPool> {
+    const url = new URL('./worker.mjs', import.meta.url);
+    const slots = await Promise.all(
+      Array.from({ length: Math.max(1, size) }, () => {
+        const worker = new Worker(url);
+        return new Promise<Slot>((resolve, reject) => {
+          worker.once('message', () => resolve({ worker, busy: 0 }));
+          worker.once('error', reject);
+        });
+      }),
+    );
+    return new FactorPool(slots);
+  }
+
+  get size(): number {
+    return this.slots.length;
+  }
+
+  private send<T>(req: WithoutId<WorkerRequest>, transfer: ArrayBuffer[] = []): Promise<T> {
+    const slot = this.slots.reduce((best, s) => (s.busy < best.busy ? s : best));
+    const id = this.nextId++;
+    slot.busy++;
+    return new Promise<T>((resolve, reject) => {
+      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
+      slot.worker.postMessage({ ...req, id }, transfer);
+    });
+  }
+
+  /** Factor lines for a block of "lon lat" text (see createFactorLineProcessor). */
+  factorLines(resolved: ResolvedDefinition, text: string): Promise<FactorLinesResult> {
+    return this.send({ kind: 'lines', resolved, text });
+  }
+
+  /** Factors for points in degrees, split across the workers; results in input order. */
+  async factors(resolved: ResolvedDefinition, lonDeg: ArrayLike<number>, latDeg: ArrayLike<number>): Promise<FactorArrays> {
+    const n = lonDeg.length;
+    const parts = Math.min(this.slots.length * 2, Math.max(1, Math.ceil(n / 4096)));
+    const size = Math.ceil(n / parts);
+    const jobs: Promise<FactorArrays>[] = [];
+    for (let start = 0; start < n; start += size) {
+      const end = Math.min(n, start + size);
+      const lon = copyRange(lonDeg, start, end);
+      const lat = copyRange(latDeg, start, end);
+      jobs.push(this.send({ kind: 'points', resolved, lonDeg: lon, latDeg: lat }, [lon.buffer, lat.buffer]));
+    }
+    const results = await Promise.all(jobs);
+    const out = allocFactorArrays(n);
+    let offset = 0;
+    for (const r of results) {
+      for (const key of Object.keys(out) as (keyof FactorArrays)[]) out[key].set(r[key], offset);
+      offset += r.h.length;
+    }
+    return out;
+  }
+
+  /** Terminates the workers. */
+  async close(): Promise<void> {
+    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+  }
+}
+
+function copyRange(src: ArrayLike<number>, start: number, end: number): Float64Array {
+  if (src instanceof Float64Array) return src.slice(start, end);
+  const out = new Float64Array(end - start);
+  for (let i = start; i < end; i++) out[i - start] = src[i];
+  return out;
+}
