@@ -9,6 +9,8 @@ import { loadConfig } from '../../server/config.js';
 import { Invitation, Membership, Studio, User } from '../../server/entities/index.js';
 import { hashPassword, hashToken } from '../../server/services/auth.service.js';
 import { addMember } from '../../server/services/people.service.js';
+import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SEAT_COUNT, DEMO_STUDIO_NAME } from '../../server/seed/demo-studio.js';
+import { seedDemo } from '../../server/seed/index.js';
 import { anonymousClient, createStudioWithRoles, signedInClient } from '../support/studio-fixture.js';
 import { Client, caughtMail, createTestApp, mailTo } from '../support/test-app.js';
 
@@ -341,6 +343,31 @@ describe('request logs', () => {
     } finally {
       await (deps.services.sessionStore as { close(): Promise<void> }).close();
       await deps.dataSource.destroy();
+    }
+  });
+});
+
+describe('demo seed', () => {
+  let t: Awaited<ReturnType<typeof createTestApp>>;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('creates the demo studio with one account per role, and running it again changes nothing', async () => {
+    const first = await seedDemo(t.deps.dataSource);
+    const second = await seedDemo(t.deps.dataSource);
+    expect(second.studioId).toBe(first.studioId);
+    expect(second.people).toEqual(first.people);
+    const studio = await t.deps.dataSource.getRepository(Studio).findOneByOrFail({ id: first.studioId });
+    expect(studio).toMatchObject({ name: DEMO_STUDIO_NAME, seatCount: DEMO_SEAT_COUNT });
+    expect(await t.deps.dataSource.getRepository(Studio).countBy({ name: DEMO_STUDIO_NAME })).toBe(1);
+    expect(await t.deps.dataSource.getRepository(Membership).countBy({ studioId: first.studioId })).toBe(4);
+    expect(DEMO_PASSWORD.length).toBeGreaterThanOrEqual(10);
+    for (const p of DEMO_PEOPLE) {
+      const res = await (await anonymousClient(t.app)).post('/api/auth/sign-in', { email: p.email, password: DEMO_PASSWORD });
+      expect(res.status).toBe(200);
+      expect(res.body.membership).toMatchObject({ role: p.role, studioName: DEMO_STUDIO_NAME });
     }
   });
 });
