@@ -14,13 +14,17 @@ import { ProjectComment } from './comment.entity.js';
 import { ReviewRecipient } from './review-recipient.entity.js';
 import { ReviewRound } from './review-round.entity.js';
 import { SignOff } from './sign-off.entity.js';
+import { PaymentEvent } from './payment-event.entity.js';
+import { SeatSubscription } from './seat-subscription.entity.js';
 
 /** Every entity, listed explicitly (globs break under vitest). Append new ones here. */
 export const entities = [
   Studio, User, Membership, Invitation, MailLog,
   MapProject, ProjectAccess, Region, Candidate, Audit, Scorecard,
   ReviewRound, ReviewRecipient, SignOff, ProjectComment, ActivityEvent,
+  SeatSubscription, PaymentEvent,
 ];
 
 export { Audit, Candidate, Invitation, MailLog, MapProject, Membership, ProjectAccess, Region, Scorecard, Studio, User };
 export { ActivityEvent, ProjectComment, ReviewRecipient, ReviewRound, SignOff };
+export { PaymentEvent, SeatSubscription };
