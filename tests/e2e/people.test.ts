@@ -51,6 +51,7 @@ describe('people page', () => {
     await page.getByRole('button', { name: 'Create studio' }).click();
     await page.getByText('Enter the studio name.').waitFor();
     expect(await page.getByLabel('Studio name').getAttribute('aria-invalid')).toBe('true');
+    await page.screenshot({ path: screenshotPath('sign-up-errors.png') });
 
     await page.getByLabel('Studio name').fill(studioName);
     await page.getByLabel('Your name').fill(admin.name);
@@ -77,6 +78,7 @@ describe('people page', () => {
     await page.waitForURL('**/studio/people');
     await page.getByRole('heading', { level: 1, name: 'People' }).waitFor();
     expect(await seatText(page)).toBe('1 of 3 staff seats');
+    expect(await page.title()).toBe('People · Warpmeter');
   });
 
   it('checks the invitation beside its field, sends it, and lists it as pending', async () => {

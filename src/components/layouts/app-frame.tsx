@@ -59,7 +59,7 @@ export function AppFrame() {
       </main>
       <footer className="border-t border-rule bg-surface/60">
         <div className="mx-auto max-w-7xl px-4 py-5 sm:px-6">
-          <Cautions compact />
+          <Cautions compact columns />
         </div>
       </footer>
     </div>

@@ -37,34 +37,39 @@ export function AuthLayout() {
   );
 }
 
-/** A loose conic-like graticule with a few indicatrices, purely decorative. */
+/**
+ * Decorative: a conic graticule with a small indicatrix at each crossing, round on the middle
+ * parallel and more stretched the farther a parallel lies from it. Outlines only, so the text
+ * over it stays legible.
+ */
 function GraticuleBackdrop() {
-  const parallels = [0, 1, 2, 3, 4, 5, 6, 7];
+  const apex = { x: 200, y: -260 };
+  const parallels = [0, 1, 2, 3, 4, 5, 6, 7, 8];
   const meridians = [-4, -3, -2, -1, 0, 1, 2, 3, 4];
+  const radius = (i: number) => 330 + i * 80;
+  const angle = (m: number) => m * 0.17;
   return (
-    <svg
-      className="pointer-events-none absolute inset-0 h-full w-full"
-      viewBox="0 0 400 600"
-      preserveAspectRatio="xMidYMid slice"
-      aria-hidden="true"
-    >
+    <svg className="pointer-events-none absolute inset-0 h-full w-full" viewBox="0 0 400 600" preserveAspectRatio="xMidYMid slice" aria-hidden="true">
       <g fill="none" stroke="#f6f3ec" strokeOpacity=".12" strokeWidth="1">
         {parallels.map((i) => (
-          <circle key={i} cx="200" cy="-260" r={360 + i * 70} />
+          <circle key={i} cx={apex.x} cy={apex.y} r={radius(i)} />
         ))}
         {meridians.map((m) => (
-          <path key={m} d={`M200 -260 L${200 + Math.sin(m * 0.16) * 1000} ${-260 + Math.cos(m * 0.16) * 1000}`} />
+          <path key={m} d={`M${apex.x} ${apex.y} L${apex.x + Math.sin(angle(m)) * 1200} ${apex.y + Math.cos(angle(m)) * 1200}`} />
         ))}
       </g>
-      <g fill="#e8b04a" fillOpacity=".22">
-        {[
-          [120, 210, 26, 16, -20],
-          [280, 300, 34, 12, 25],
-          [170, 420, 42, 10, -8],
-          [330, 500, 30, 18, 40],
-        ].map(([cx, cy, rx, ry, rot]) => (
-          <ellipse key={`${cx}-${cy}`} cx={cx} cy={cy} rx={rx} ry={ry} transform={`rotate(${rot} ${cx} ${cy})`} />
-        ))}
+      <g fill="none" stroke="#e8b04a" strokeOpacity=".45" strokeWidth="1.2">
+        {parallels.flatMap((i) =>
+          meridians.map((m) => {
+            const a = angle(m);
+            const cx = apex.x + Math.sin(a) * radius(i);
+            const cy = apex.y + Math.cos(a) * radius(i);
+            const stretch = 1 + 0.045 * (i - 4) ** 2;
+            return (
+              <ellipse key={`${i}:${m}`} cx={cx} cy={cy} rx={7 * stretch} ry={7 / stretch} transform={`rotate(${(-a * 180) / Math.PI} ${cx} ${cy})`} />
+            );
+          }),
+        )}
       </g>
     </svg>
   );

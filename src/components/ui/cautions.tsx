@@ -10,18 +10,20 @@ export const CAUTIONS: readonly string[] = [
 ];
 
 interface CautionsProps {
-  /** Footer style: small, muted, in one flowing paragraph on wide screens. */
+  /** Footer style: small and muted. */
   compact?: boolean;
+  /** Two columns on wide screens (for a full-width footer). */
+  columns?: boolean;
   className?: string;
 }
 
-export function Cautions({ compact, className }: CautionsProps) {
+export function Cautions({ compact, columns, className }: CautionsProps) {
   return (
     <section aria-labelledby="cautions-heading" className={cn(compact ? 'text-xs text-ink-600' : 'text-sm text-ink-800', className)}>
       <h2 id="cautions-heading" className={cn('font-semibold text-ink-800', compact ? 'mb-1 text-xs' : 'mb-2 text-sm')}>
         Before you rely on these figures
       </h2>
-      <ul className={cn(compact ? 'flex flex-col gap-0.5 sm:flex-row sm:flex-wrap sm:gap-x-4' : 'list-disc space-y-1 pl-5')}>
+      <ul className={cn('list-disc marker:text-mulberry-300', compact ? 'grid gap-x-10 gap-y-0.5 pl-4' : 'space-y-1 pl-5', columns && 'md:grid-cols-2')}>
         {CAUTIONS.map((c) => (
           <li key={c}>{c}</li>
         ))}

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiRequest } from '@/lib/api-client.js';
+import { apiRequest, isApiError } from '@/lib/api-client.js';
 import { getSession, storeSession } from './get-session.js';
 
 export const signOut = () => apiRequest('/auth/sign-out', { method: 'POST' });
@@ -9,7 +9,12 @@ export function useSignOut() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: async () => {
-      await signOut();
+      try {
+        await signOut();
+      } catch (err) {
+        // 401: the session had already ended on the server, which is what was asked for.
+        if (!isApiError(err) || err.status !== 401) throw err;
+      }
       return getSession();
     },
     onSuccess: (session) => storeSession(queryClient, session),

@@ -23,7 +23,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
         type="password"
         autoComplete="new-password"
         required
-        hint="At least 10 characters. A short phrase is easier to remember than a jumble."
+        hint="A short phrase of a few words is easier to remember than a jumble of symbols."
         {...form.field('password')}
       />
       <Button type="submit" loading={form.submitting}>

@@ -8,7 +8,7 @@ export function SeatUsage({ seats }: { seats: PeopleList['seats'] }) {
   const full = seats.used >= seats.total;
   const share = seats.total > 0 ? Math.min(1, seats.used / seats.total) : 1;
   return (
-    <div className="min-w-56">
+    <div className="w-72 max-w-full">
       <p className="text-sm font-medium text-ink-950 tabular" data-testid="seat-usage">
         {seats.used} of {plural(seats.total, 'staff seat', 'staff seats')}
       </p>
