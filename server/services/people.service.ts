@@ -1,7 +1,7 @@
 import { IsNull, MoreThan, type DataSource, type EntityManager } from 'typeorm';
 import type { Member, PeopleList, UpdateMemberInput } from '../../shared/api/people.schema.js';
 import { isStaffRole, type Role } from '../../shared/api/roles.js';
-import { Invitation, Membership, User } from '../entities/index.js';
+import { Invitation, Membership, Studio, User } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, notFound } from '../http/errors.js';
 import { assertStaffSeatAvailable, countStaffSeatsUsed, lockStudio } from './seats.service.js';
@@ -18,25 +18,25 @@ const toMember = (m: Membership): Member => ({
 
 /** The studio's members, its pending invitations and its seat use (`GET /api/people`). */
 export async function listPeople(ds: DataSource, studioId: number): Promise<PeopleList> {
-  return ds.transaction(async (m) => {
-    const studio = await lockStudio(m, studioId);
-    const members = await m.getRepository(Membership).find({ where: { studioId }, relations: { user: true }, order: { id: 'ASC' } });
-    const invitations = await m.getRepository(Invitation).find({
-      where: { studioId, kind: 'invite', usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
-      order: { id: 'ASC' },
-    });
-    return {
-      members: members.map(toMember),
-      invitations: invitations.map((i) => ({
-        id: i.id,
-        email: i.email,
-        role: i.role!,
-        expiresAt: i.expiresAt.toISOString(),
-        createdAt: i.createdAt.toISOString(),
-      })),
-      seats: { used: await countStaffSeatsUsed(m, studioId), total: studio.seatCount },
-    };
+  const m = ds.manager;
+  const studio = await m.getRepository(Studio).findOneBy({ id: studioId });
+  if (!studio) throw notFound('That studio');
+  const members = await m.getRepository(Membership).find({ where: { studioId }, relations: { user: true }, order: { id: 'ASC' } });
+  const invitations = await m.getRepository(Invitation).find({
+    where: { studioId, kind: 'invite', usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+    order: { id: 'ASC' },
   });
+  return {
+    members: members.map(toMember),
+    invitations: invitations.map((i) => ({
+      id: i.id,
+      email: i.email,
+      role: i.role!,
+      expiresAt: i.expiresAt.toISOString(),
+      createdAt: i.createdAt.toISOString(),
+    })),
+    seats: { used: await countStaffSeatsUsed(m, studioId), total: studio.seatCount },
+  };
 }
 
 const holdsSeat = (role: Role, status: Membership['status']) => isStaffRole(role) && status === 'active';

@@ -54,6 +54,8 @@ describe('role × route matrix', () => {
     expect(shadowed).toEqual([]);
     // The foundation's routes are all in the table.
     for (const k of ['POST /auth/sign-in', 'GET /people', 'PATCH /people/:membershipId', 'POST /invitations/accept']) expect(keys).toContain(k);
+    // Managing people is for admins only.
+    for (const spec of specs.filter((r) => r.path.startsWith('/people'))) expect(spec.access).toEqual(['admin']);
   });
 
   it('answers 401 to a signed-out caller on every non-public route', async () => {
