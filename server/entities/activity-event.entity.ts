@@ -31,7 +31,7 @@ export class ActivityEvent {
   summary: string;
 
   @Column({ type: 'json', nullable: true })
-  details: unknown;
+  details: Record<string, unknown> | null;
 
   @CreateDateColumn({ type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' })
   createdAt: Date;
