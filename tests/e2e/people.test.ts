@@ -165,6 +165,14 @@ describe('people page', () => {
     expect((await firstCells())[0]).toContain('Gerard Carto');
   });
 
+  it('fits a phone screen: wide tables scroll inside their card, not the page', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.getByRole('region', { name: 'Members' }).waitFor();
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await page.screenshot({ path: screenshotPath('people-phone.png'), fullPage: true });
+    await page.setViewportSize({ width: 1280, height: 860 });
+  });
+
   it('met no script errors on the way', () => {
     expect(adminBrowser.problems).toEqual([]);
     expect(cartoBrowser.problems).toEqual([]);

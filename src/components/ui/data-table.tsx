@@ -72,7 +72,9 @@ export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, 
     setSort((s) => (s?.key === key ? { key, direction: s.direction === 'ascending' ? 'descending' : 'ascending' } : { key, direction: 'ascending' }));
 
   return (
-    <div className={cn('overflow-x-auto', className)}>
+    // `relative`: visually hidden (absolutely placed) labels inside must scroll with the table,
+    // not widen the page on narrow screens.
+    <div className={cn('relative overflow-x-auto', className)}>
       <table className="w-full border-collapse text-left text-sm">
         <caption className={cn('px-4 py-2 text-left text-sm text-ink-600', captionHidden && 'sr-only')}>{caption}</caption>
         <thead>
