@@ -9,6 +9,7 @@ import { conflict, HttpError, notFound } from '../http/errors.js';
 import { inviteMail } from '../mail/templates.js';
 import { findLiveToken, hashPassword, hashToken, invalidLink, newToken, verifyPassword } from './auth.service.js';
 import { assertStaffSeatAvailable, lockStudio } from './seats.service.js';
+import { grantReviewAccessOnJoin } from '../signoff/reviewers.js';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 export const INVITE_LIFETIME_MS = 7 * DAY_MS;
@@ -122,6 +123,8 @@ export async function acceptInvitation(
     if (existing) throw alreadyMember(inv.email, existing);
     const membership = await memberships.save(memberships.create({ userId: user.id, studioId: inv.studioId!, role: inv.role!, status: 'active' }));
     await m.getRepository(Invitation).update(inv.id, { usedAt: new Date() });
+    // A client reviewer invited with a shortlist sees the projects sent to their address at once.
+    if (inv.role === 'client') await grantReviewAccessOnJoin(m, { studioId: inv.studioId!, userId: user.id, email: inv.email });
     return { userId: user.id, membershipId: membership.id };
   });
 }
