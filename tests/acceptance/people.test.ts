@@ -2,6 +2,8 @@ import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sessionSchema } from '../../shared/api/auth.schema.js';
 import { peopleListSchema, pendingInvitationSchema } from '../../shared/api/people.schema.js';
+import { createApp } from '../../server/app.js';
+import type { AppDeps } from '../../server/deps.js';
 import { Invitation, Membership, Studio, User } from '../../server/entities/index.js';
 import { anonymousClient, createStudioWithRoles } from '../support/studio-fixture.js';
 import { type Client, createTestApp, mailTo } from '../support/test-app.js';
@@ -123,6 +125,21 @@ describe('people, invitations and seats', () => {
     ]);
     expect([a.status, b.status].sort()).toEqual([201, 409]);
     expect((await people(s.admin)).seats).toEqual({ used: 4, total: 4 });
+  });
+
+  it('stores no invitation when its e-mail cannot be sent', async () => {
+    const deps: AppDeps = { ...t.deps, services: {}, mailer: { send: async () => Promise.reject(new Error('SMTP is down')) } };
+    const app = createApp(deps);
+    try {
+      const s = await createStudioWithRoles({ app, deps });
+      const email = newEmail('unsent');
+      const res = await s.admin.post('/api/people/invitations', { email, role: 'client' });
+      expect(res.status).toBe(502);
+      expect(res.body.error.message).toMatch(/could not be sent, so no invitation was saved/);
+      expect(await t.deps.dataSource.getRepository(Invitation).countBy({ email })).toBe(0);
+    } finally {
+      await (deps.services.sessionStore as { close(): Promise<void> }).close();
+    }
   });
 
   it('refuses to invite someone who is already a member', async () => {
