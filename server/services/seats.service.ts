@@ -2,6 +2,7 @@ import { In, IsNull, MoreThan, Not, type EntityManager } from 'typeorm';
 import { STAFF_ROLES } from '../../shared/api/roles.js';
 import { Invitation, Membership, Studio } from '../entities/index.js';
 import { HttpError, notFound } from '../http/errors.js';
+import { assertBillingAllowsNewStaff } from '../billing/billing-guard.js';
 
 /**
  * Staff seats (admin, cartographer, editor) are what a studio pays for; client reviewers take
@@ -50,7 +51,8 @@ export const seatsFullMessage = (total: number) =>
   `All ${total} staff seat${total === 1 ? ' is' : 's are'} in use. Add seats on the Billing page or deactivate someone first.`;
 
 /**
- * Refuses (409 `seats_full`) when `extra` more staff seats would exceed the studio's seat count.
+ * Refuses (409 `seats_full`) when `extra` more staff seats would exceed the studio's seat count,
+ * and (402 `billing_hold`) once a failed payment's grace period is over or the subscription ended.
  * Locks the studio row itself, so call it inside a transaction; returns the counts it saw.
  */
 export async function assertStaffSeatAvailable(
@@ -60,6 +62,7 @@ export async function assertStaffSeatAvailable(
   opts: SeatCountOptions = {},
 ): Promise<{ used: number; total: number }> {
   const studio = await lockStudio(manager, studioId);
+  if (extra > 0) await assertBillingAllowsNewStaff(manager, studioId);
   const used = await countStaffSeatsUsed(manager, studioId, opts);
   if (used + extra > studio.seatCount) throw new HttpError(409, 'seats_full', seatsFullMessage(studio.seatCount));
   return { used, total: studio.seatCount };
