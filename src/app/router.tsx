@@ -2,6 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router';
 import { AppFrame } from '@/components/layouts/app-frame.js';
 import { AuthLayout } from '@/components/layouts/auth-layout.js';
+import { Spinner } from '@/components/ui/spinner.js';
 import { hasRole, isMember, sessionQueryOptions, type MemberSession } from '@/features/auth/api/get-session.js';
 import type { MemberPage, PublicPage } from './route-types.js';
 import { safeNext } from './safe-next.js';
@@ -59,16 +60,27 @@ function memberRoute(page: MemberPage, queryClient: QueryClient): RouteObject {
   };
 }
 
+/** Shown while the first page's loaders run (reading the session, warming the page's data). */
+function StartingUp() {
+  return (
+    <div className="flex min-h-screen items-center justify-center">
+      <Spinner label="Opening Warpmeter…" />
+    </div>
+  );
+}
+
 export function buildRoutes(queryClient: QueryClient): RouteObject[] {
   return [
     {
       Component: AuthLayout,
+      HydrateFallback: StartingUp,
       ErrorBoundary: RouteError,
       children: PUBLIC_PAGES.map((p) => publicRoute(p, queryClient)),
     },
     {
       path: '/',
       Component: AppFrame,
+      HydrateFallback: StartingUp,
       loader: async ({ request }) => {
         await requireMember(queryClient, request);
         return null;

@@ -176,5 +176,6 @@ describe('people page', () => {
   it('met no script errors on the way', () => {
     expect(adminBrowser.problems).toEqual([]);
     expect(cartoBrowser.problems).toEqual([]);
+    if (process.env.WARPMETER_SHOW_WARNINGS) console.log([...adminBrowser.warnings, ...cartoBrowser.warnings]);
   });
 });

@@ -24,6 +24,8 @@ export interface TestBrowser {
   newPage(): Promise<Page>;
   /** Uncaught page errors and console errors seen so far in any tab of this browser. */
   problems: string[];
+  /** Console warnings (React and router advice), for a person to read; not a failure. */
+  warnings: string[];
   close(): Promise<void>;
 }
 
@@ -44,12 +46,14 @@ export async function launchBrowser(opts: { baseURL?: string } = {}): Promise<Te
   });
   context.setDefaultTimeout(15_000);
   const problems: string[] = [];
+  const warnings: string[] = [];
   const watch = (page: Page) => {
     page.on('pageerror', (err) => problems.push(`page error: ${err.message}`));
     page.on('console', (msg) => {
       // Failed requests the app handled itself (a 401 session probe, a refused form) are logged
       // by Chromium as console errors; only script errors count as problems.
       if (msg.type() === 'error' && !msg.text().startsWith('Failed to load resource')) problems.push(`console: ${msg.text()}`);
+      if (msg.type() === 'warning') warnings.push(msg.text());
     });
   };
   context.pages().forEach(watch);
@@ -57,6 +61,7 @@ export async function launchBrowser(opts: { baseURL?: string } = {}): Promise<Te
   return {
     context,
     problems,
+    warnings,
     newPage: async () => {
       const blank = context.pages().find((p) => p.url() === 'about:blank');
       return blank ?? context.newPage();

@@ -86,7 +86,7 @@ export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, 
                   key={col.key}
                   scope="col"
                   aria-sort={col.sortValue ? (active ? sort.direction : 'none') : undefined}
-                  className={cn('px-4 py-2 font-medium text-ink-600', col.align === 'right' && 'text-right', col.className)}
+                  className={cn('px-4 py-2 font-medium whitespace-nowrap text-ink-600', col.align === 'right' && 'text-right', col.className)}
                 >
                   {col.sortValue ? (
                     <button
