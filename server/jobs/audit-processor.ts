@@ -1,0 +1,86 @@
+import type { Logger } from 'pino';
+import type { DataSource } from 'typeorm';
+import { Audit, Region, Scorecard } from '../entities/index.js';
+import type { AuditEngine } from './audit-engine.js';
+import { readSettings } from './audit-settings.js';
+import { encodeFields } from './fields-codec.js';
+
+export interface ProcessorContext {
+  dataSource: DataSource;
+  logger: Logger;
+  engine: AuditEngine;
+}
+
+/** Least change of progress written to the audit row, so a fast audit does not flood MariaDB. */
+const PROGRESS_STEP = 0.02;
+
+/** The text stored in audit.error: what went wrong, in words the cartographer can act on. */
+export function failureMessage(err: unknown): string {
+  const raw = err instanceof Error ? err.message : String(err);
+  return `The audit could not finish: ${raw.replace(/^Error:\s*/, '')}`.slice(0, 2000);
+}
+
+/**
+ * Runs one audit to completion. Safe to run again for the same audit (after a crash, or when a
+ * stalled job is handed to a second worker): all scorecards are written in ONE transaction that
+ * first locks the audit row, skips if another run already finished it, and replaces any earlier
+ * rows — so there is never a partial or duplicate set of scorecards.
+ */
+export async function processAudit(
+  ctx: ProcessorContext,
+  auditId: number,
+  onProgress: (fraction: number) => Promise<void> | void = () => {},
+): Promise<'done' | 'already-done' | 'missing'> {
+  const db = ctx.dataSource;
+  const audits = db.getRepository(Audit);
+  const audit = await audits.findOneBy({ id: auditId });
+  if (!audit) return 'missing';
+  if (audit.status === 'done') return 'already-done';
+  const started = Date.now();
+  await audits.update({ id: auditId }, { status: 'running', progress: 0, error: null, startedAt: audit.startedAt ?? new Date() });
+
+  try {
+    const region = await db.getRepository(Region).findOneBy({ id: audit.regionId, studioId: audit.studioId });
+    if (!region) throw new Error('its region is no longer stored.');
+    const settings = readSettings(audit.settings);
+    if (!settings.candidates.length) throw new Error('it has no candidates.');
+
+    let written = 0;
+    const result = await ctx.engine.scoreCandidates(
+      { geometry: region.geometry as never, candidates: settings.candidates, samples: settings.samples, seed: settings.seed },
+      async (fraction) => {
+        if (fraction - written < PROGRESS_STEP && fraction < 1) return;
+        written = fraction;
+        const p = Math.min(0.99, fraction);
+        await audits.update({ id: auditId, status: 'running' }, { progress: p });
+        await onProgress(p);
+      },
+    );
+
+    const finished = await db.transaction(async (tx) => {
+      const row = await tx.getRepository(Audit).findOne({ where: { id: auditId }, lock: { mode: 'pessimistic_write' } });
+      if (!row || row.status === 'done') return false;
+      await tx.getRepository(Scorecard).delete({ auditId });
+      await tx.getRepository(Scorecard).insert(
+        result.candidates.map((r) => ({
+          auditId,
+          candidateId: r.candidateId,
+          studioId: audit.studioId,
+          metrics: r.metrics,
+          fields: encodeFields(r.fields),
+        })),
+      );
+      await tx.getRepository(Audit).update(
+        { id: auditId },
+        { status: 'done', progress: 1, error: null, finishedAt: new Date(), timings: { totalMs: Date.now() - started, ...result.timingsMs } },
+      );
+      return true;
+    });
+    await onProgress(1);
+    return finished ? 'done' : 'already-done';
+  } catch (err) {
+    ctx.logger.warn({ err, auditId }, 'audit failed');
+    await audits.update({ id: auditId }, { status: 'failed', error: failureMessage(err), finishedAt: new Date() });
+    throw err;
+  }
+}

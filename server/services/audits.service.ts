@@ -1,0 +1,147 @@
+import type { DataSource } from 'typeorm';
+import { In } from 'typeorm';
+import {
+  SAMPLES_DEFAULT,
+  type AuditDetail,
+  type AuditSummary,
+  type StartAuditInput,
+} from '../../shared/api/audits.schema.js';
+import { Audit, Candidate, MapProject, Region, Scorecard } from '../entities/index.js';
+import type { Actor } from '../http/actor.js';
+import { conflict, notFound, unavailable, validationFailed } from '../http/errors.js';
+import { readSettings, type AuditCandidateSnapshot, type StoredAuditSettings } from '../jobs/audit-settings.js';
+import { ENGINE_VERSION } from '../jobs/engine-instance.js';
+import { canonicalSha256 } from '../regions/canonical-json.js';
+import { loadProjectFor } from './project-guard.js';
+import { scorecardViews } from './scorecards.service.js';
+
+/** Seed used when none is given, so the same inputs give the same audit (and the same input hash). */
+export const DEFAULT_SEED = 1;
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
+
+export function auditSummary(a: Audit): AuditSummary {
+  const s = readSettings(a.settings);
+  return {
+    id: a.id,
+    projectId: a.projectId,
+    regionId: a.regionId,
+    candidateIds: a.candidateIds,
+    status: a.status,
+    progress: a.progress,
+    error: a.error,
+    settings: { samples: s.samples, seed: s.seed },
+    engineVersion: a.engineVersion,
+    inputHash: a.inputHash,
+    createdAt: a.createdAt.toISOString(),
+    startedAt: iso(a.startedAt),
+    finishedAt: iso(a.finishedAt),
+  };
+}
+
+/**
+ * The SHA-256 of everything an audit's numbers depend on — the region geometry's hash, each
+ * candidate's definition, the sampling settings and the engine version — as canonical JSON, so
+ * anyone holding the same inputs can recompute it.
+ */
+export function auditInputHash(regionSha256: string, settings: StoredAuditSettings, engineVersion: string): string {
+  return canonicalSha256({
+    region: regionSha256,
+    definitions: settings.candidates.map((c) => c.resolved),
+    settings: { samples: settings.samples, seed: settings.seed },
+    engineVersion,
+  });
+}
+
+/**
+ * Creates a queued audit of the project's current region over the chosen candidates (all of the
+ * project's when none are named) and hands it to the queue. If the queue cannot take it, the audit
+ * row is removed again, so no audit is left that nothing will run.
+ */
+export async function startAudit(
+  db: DataSource,
+  actor: Actor,
+  projectId: number,
+  input: StartAuditInput,
+  enqueue: (auditId: number) => Promise<void>,
+): Promise<AuditSummary> {
+  const project = await loadProjectFor(db, actor, projectId, 'write');
+  const region = await db.getRepository(Region).findOne({
+    select: { id: true, sha256: true },
+    where: { projectId: project.id, studioId: actor.studioId, isCurrent: true },
+  });
+  if (!region) throw conflict('Upload the region to map before starting an audit.');
+  const all = await db.getRepository(Candidate).find({ where: { projectId: project.id, studioId: actor.studioId }, order: { id: 'ASC' } });
+  let chosen = all;
+  if (input.candidateIds) {
+    const byId = new Map(all.map((c) => [c.id, c]));
+    const unknown = input.candidateIds.filter((id) => !byId.has(id));
+    if (unknown.length) {
+      throw validationFailed('Some candidates are not part of this project.', {
+        candidateIds: `Not a candidate of this project: ${unknown.join(', ')}.`,
+      });
+    }
+    chosen = [...new Set(input.candidateIds)].map((id) => byId.get(id)!);
+  }
+  if (!chosen.length) throw conflict('Add at least one candidate projection before starting an audit.');
+
+  const candidates: AuditCandidateSnapshot[] = chosen.map((c) => ({
+    id: c.id,
+    label: c.label,
+    family: c.family,
+    definition: c.definition,
+    resolved: c.resolved,
+  }));
+  const settings: StoredAuditSettings = { samples: input.samples ?? SAMPLES_DEFAULT, seed: input.seed ?? DEFAULT_SEED, candidates };
+  const audit = await db.getRepository(Audit).save(
+    db.getRepository(Audit).create({
+      projectId: project.id,
+      studioId: actor.studioId,
+      regionId: region.id,
+      candidateIds: candidates.map((c) => c.id),
+      status: 'queued',
+      progress: 0,
+      settings,
+      engineVersion: ENGINE_VERSION,
+      inputHash: auditInputHash(region.sha256, settings, ENGINE_VERSION),
+      createdById: actor.userId,
+    }),
+  );
+  try {
+    await enqueue(audit.id);
+  } catch {
+    await db.getRepository(Audit).delete({ id: audit.id });
+    throw unavailable('The job queue is not reachable right now, so the audit was not started. Please try again in a moment.');
+  }
+  return auditSummary(audit);
+}
+
+export async function listAudits(db: DataSource, actor: Actor, projectId: number): Promise<AuditSummary[]> {
+  const project = await loadProjectFor(db, actor, projectId, 'read');
+  const rows = await db.getRepository(Audit).find({
+    where: { projectId: project.id, studioId: actor.studioId },
+    order: { createdAt: 'DESC', id: 'DESC' },
+  });
+  return rows.map(auditSummary);
+}
+
+/** Loads an audit the actor may read: its project's guard decides (404 for other studios and unshared clients). */
+export async function loadAuditFor(db: DataSource, actor: Actor, auditId: number): Promise<{ audit: Audit; project: MapProject }> {
+  const audit = await db.getRepository(Audit).findOneBy({ id: auditId, studioId: actor.studioId });
+  if (!audit) throw notFound('That audit');
+  const project = await loadProjectFor(db, actor, audit.projectId, 'read').catch(() => {
+    throw notFound('That audit');
+  });
+  return { audit, project };
+}
+
+export async function getAudit(db: DataSource, actor: Actor, auditId: number): Promise<AuditDetail> {
+  const { audit, project } = await loadAuditFor(db, actor, auditId);
+  const cards = audit.status === 'done'
+    ? await db.getRepository(Scorecard).find({
+        select: { id: true, candidateId: true, metrics: true },
+        where: { auditId: audit.id, studioId: actor.studioId, candidateId: In(audit.candidateIds) },
+      })
+    : [];
+  return { ...auditSummary(audit), purpose: project.purpose, scorecards: scorecardViews(audit, cards) };
+}
