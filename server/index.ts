@@ -1,14 +1,17 @@
 import { createApp } from './app.js';
 import { bootstrap } from './bootstrap.js';
+import { startAuditJobs, stopAuditJobs } from './jobs/runner.js';
 
 // Starts listening; everything else lives in createApp and bootstrap.
 const deps = await bootstrap();
 const app = createApp(deps);
+// The audit queue, this process's own audit worker and the re-enqueueing of interrupted audits.
+await startAuditJobs(deps);
 const server = app.listen(deps.config.port, deps.config.host, () => {
   deps.logger.info(`Warpmeter is listening on http://${deps.config.host}:${deps.config.port}`);
 });
 const shutdown = () => {
-  server.close(() => void deps.dataSource.destroy().finally(() => process.exit(0)));
+  server.close(() => void stopAuditJobs(deps).finally(() => void deps.dataSource.destroy().finally(() => process.exit(0))));
   setTimeout(() => process.exit(0), 5000).unref();
 };
 process.on('SIGTERM', shutdown);

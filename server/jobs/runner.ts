@@ -1,6 +1,6 @@
 import type { Queue, Worker } from 'bullmq';
 import type { AppDeps } from '../deps.js';
-import { sharedAuditEngine } from './engine-instance.js';
+import { closeSharedAuditEngine, sharedAuditEngine } from './engine-instance.js';
 import { createAuditQueue, enqueueAudit, type AuditJobData } from './queue.js';
 import { recoverAudits } from './recover.js';
 import { createAuditWorker } from './worker.js';
@@ -52,4 +52,5 @@ export async function startAuditJobs(deps: AppDeps, env: NodeJS.ProcessEnv = pro
 export async function stopAuditJobs(deps: AppDeps): Promise<void> {
   const jobs = deps.services[KEY] as AuditJobs | undefined;
   await jobs?.close();
+  await closeSharedAuditEngine();
 }
