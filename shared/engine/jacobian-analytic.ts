@@ -12,6 +12,9 @@ import type { Proj4Projection } from './proj4-object';
  * Lambert conformal conic: ρ = a F tⁿ, dρ/dφ = −n ρ (1 − e²)/((1 − e² sin²φ) cos φ) (eqs. 15-7, 15-9).
  * Albers: ρ = a √(C − n q)/n, dρ/dφ = −a (dq/dφ)/(2√(C − n q)) (eq. 14-12).
  * For the conics θ = nΔλ, x = k₀ρ sin θ, y = k₀(ρ₀ − ρ cos θ).
+ * Transverse Mercator on the sphere: B = cos φ sin Δλ, x = a k₀ atanh B, y = a k₀ atan2(tan φ, cos Δλ)
+ * (eqs. 8-1, 8-3); differentiated directly, since proj4 forms y through an acos that loses half
+ * the digits near the equator.
  * Example: for +proj=merc +R=1, ∂y/∂φ at φ = 60° is sec 60° = 2.
  */
 export function analyticJacobian(family: string, p: Proj4Projection): JacobianRad | undefined {
@@ -102,6 +105,24 @@ export function analyticJacobian(family: string, p: Proj4Projection): JacobianRa
         const rho = (a * root) / n;
         const dRho = (-a * dq) / (2 * root);
         return conicJacobian(rho, dRho, n, n * wrap(lam - lon0), out);
+      };
+    }
+    case 'tmerc': {
+      if (p.es !== 0) return undefined;
+      const ak = a * (p.k0 ?? 1);
+      return (lam, phi, out) => {
+        const dl = wrap(lam - lon0);
+        const sinPhi = Math.sin(phi);
+        const cosPhi = Math.cos(phi);
+        const sinDl = Math.sin(dl);
+        const cosDl = Math.cos(dl);
+        const b = cosPhi * sinDl;
+        const inv = ak / (1 - b * b);
+        out[0] = inv * cosPhi * cosDl;
+        out[1] = inv * sinPhi * cosPhi * sinDl;
+        out[2] = -inv * sinPhi * sinDl;
+        out[3] = inv * cosDl;
+        return b * b < 1;
       };
     }
     default:

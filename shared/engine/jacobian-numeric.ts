@@ -11,6 +11,11 @@ export type JacobianRad = (lamRad: number, phiRad: number, out: Float64Array) =>
  * (default DERIVATIVE_STEP_RAD). lamRad must lie within [lon0 − π, lon0 + π]; within one step of
  * that cut (where x jumps by the map's width) or of a pole, the one-sided second-order formula
  * f′ ≈ (∓3f(x) ± 4f(x ± h) ∓ f(x ± 2h))/(2h) looks away from it (Fornberg 1988 weights).
+ *
+ * Where the coordinates are large beside their rate of change (|f|/|f′| = R radians ≫ 1, e.g. the
+ * λ-derivative of a transverse Mercator near the pole, y ≈ 10⁷ m against N cos φ ≈ 10⁴ m), rounding
+ * (ε·R/step) would swamp truncation (step²/6), so that derivative is taken again with the step
+ * that balances them, (3εR)^{1/3}, capped at 1e-3 rad.
  * Example: numericJacobian((l, p, xy) => { xy[0] = l; xy[1] = p; }, 0)(0.1, 0.2, out) gives 1, 0, 0, 1.
  */
 export function numericJacobian(forward: ForwardRad, lon0Rad: number, stepRad = DERIVATIVE_STEP_RAD): JacobianRad {
@@ -35,6 +40,14 @@ export function numericJacobian(forward: ForwardRad, lon0Rad: number, stepRad = 
       x2 = xy[0]; y2 = xy[1];
       out[0] = (x1 - x2) * inv2h;
       out[1] = (y1 - y2) * inv2h;
+      const step = balancedStep(x1, y1, x2, y2, out[0], out[1], h);
+      if (step > 0 && dl + step < Math.PI && dl - step > -Math.PI) {
+        forward(lam + step, phi, xy);
+        x1 = xy[0]; y1 = xy[1];
+        forward(lam - step, phi, xy);
+        out[0] = (x1 - xy[0]) / (2 * step);
+        out[1] = (y1 - xy[1]) / (2 * step);
+      }
     } else {
       const d = dl > 0 ? -h : h;
       forward(lam + d, phi, xy);
@@ -51,6 +64,14 @@ export function numericJacobian(forward: ForwardRad, lon0Rad: number, stepRad = 
       x2 = xy[0]; y2 = xy[1];
       out[2] = (x1 - x2) * inv2h;
       out[3] = (y1 - y2) * inv2h;
+      const step = balancedStep(x1, y1, x2, y2, out[2], out[3], h);
+      if (step > 0 && phi + step < HALF_PI && phi - step > -HALF_PI) {
+        forward(lam, phi + step, xy);
+        x1 = xy[0]; y1 = xy[1];
+        forward(lam, phi - step, xy);
+        out[2] = (x1 - xy[0]) / (2 * step);
+        out[3] = (y1 - xy[1]) / (2 * step);
+      }
     } else {
       const d = phi > 0 ? -h : h;
       forward(lam, phi + d, xy);
@@ -63,4 +84,15 @@ export function numericJacobian(forward: ForwardRad, lon0Rad: number, stepRad = 
     const sum = out[0] + out[1] + out[2] + out[3];
     return sum === sum && sum !== Infinity && sum !== -Infinity;
   };
+}
+
+const EPS = 2.220446049250313e-16;
+
+/** The step balancing rounding and truncation when it is well above h, else 0 (keep h). */
+function balancedStep(x1: number, y1: number, x2: number, y2: number, dx: number, dy: number, h: number): number {
+  const size = 0.5 * (Math.abs(x1 + x2) + Math.abs(y1 + y2));
+  const rate = Math.abs(dx) + Math.abs(dy);
+  if (!(size > 8 * rate)) return 0;
+  const step = Math.cbrt(3 * EPS * (size / rate));
+  return step > 1.5 * h ? Math.min(step, 1e-3) : 0;
 }

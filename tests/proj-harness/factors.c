@@ -1,6 +1,9 @@
 /* Full-precision Tissot factors from PROJ's proj_factors(), for comparison tests and the bench.
  * Usage: factors '<proj string>'            reads "lon lat" (degrees) lines on stdin and prints
  *                                           h k s omega_deg a b convergence_deg thetap_deg (%.17g)
+ *                                           then a b omega_deg again, recomputed from PROJ's own
+ *                                           partial derivatives without the cancellation of
+ *                                           sqrt(h² + k² − 2s) (see stable_axes)
  *        factors --time N '<proj string>'   reads the points once, calls proj_factors() on all of
  *                                           them N times and prints "points seconds" on stdout.  */
 #include <proj.h>
@@ -11,6 +14,19 @@
 #include <time.h>
 
 #define DEG (M_PI / 180.0)
+
+/* Tissot axes from PROJ's derivatives, scaled so that |north| = h and |east| = k as PROJ reports:
+ * a' = |(p + t, q − r)|, b' = |(p − t, q + r)| with east = (p, q), north = (r, t). */
+static void stable_axes(const PJ_FACTORS *f, double *a, double *b, double *omega_deg) {
+  double ln = hypot(f->dx_dlam, f->dy_dlam), lp = hypot(f->dx_dphi, f->dy_dphi);
+  double p = f->dx_dlam * f->parallel_scale / ln, q = f->dy_dlam * f->parallel_scale / ln;
+  double r = f->dx_dphi * f->meridional_scale / lp, t = f->dy_dphi * f->meridional_scale / lp;
+  double ap = hypot(p + t, q - r), bp = hypot(p - t, q + r);
+  if (p * t - q * r < 0) { double w = ap; ap = bp; bp = w; }
+  *a = 0.5 * (ap + bp);
+  *b = 0.5 * (ap - bp);
+  *omega_deg = 2 * asin(bp / ap) / DEG;
+}
 
 static double now_s(void) {
   struct timespec ts;
@@ -40,11 +56,14 @@ int main(int argc, char **argv) {
       PJ_FACTORS f = proj_factors(P, proj_coord(x * DEG, y * DEG, 0, 0));
       if (proj_errno(P)) {
         proj_errno_reset(P);
-        printf("nan\tnan\tnan\tnan\tnan\tnan\tnan\tnan\n");
+        printf("nan\tnan\tnan\tnan\tnan\tnan\tnan\tnan\tnan\tnan\tnan\n");
       } else {
-        printf("%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\n", f.meridional_scale,
-               f.parallel_scale, f.areal_scale, f.angular_distortion / DEG, f.tissot_semimajor,
-               f.tissot_semiminor, f.meridian_convergence / DEG, f.meridian_parallel_angle / DEG);
+        double sa, sb, so;
+        stable_axes(&f, &sa, &sb, &so);
+        printf("%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\t%.17g\n",
+               f.meridional_scale, f.parallel_scale, f.areal_scale, f.angular_distortion / DEG,
+               f.tissot_semimajor, f.tissot_semiminor, f.meridian_convergence / DEG,
+               f.meridian_parallel_angle / DEG, sa, sb, so);
       }
       continue;
     }
