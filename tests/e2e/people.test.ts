@@ -165,6 +165,27 @@ describe('people page', () => {
     expect((await firstCells())[0]).toContain('Gerard Carto');
   });
 
+  it('changes a role in place, and a deactivated member is signed out at their next page', async () => {
+    const members = page.getByRole('region', { name: 'Members' });
+    const roleSelect = members.getByLabel(`Role of ${carto.name}`);
+    await roleSelect.selectOption('editor');
+    await page.getByText(`${carto.name} is now Editor.`).waitFor();
+    expect(await roleSelect.inputValue()).toBe('editor');
+
+    const cartoRow = members.getByRole('row').filter({ hasText: carto.email });
+    await members.getByRole('button', { name: `Deactivate ${carto.name}` }).click();
+    await cartoRow.getByText('Deactivated', { exact: true }).waitFor();
+    expect(await seatText(page)).toBe('1 of 3 staff seats');
+
+    const cp = cartoBrowser.context.pages()[0];
+    await cp.goto('/projects');
+    await cp.waitForURL('**/sign-in?next=%2Fprojects');
+
+    await members.getByRole('button', { name: `Reactivate ${carto.name}` }).click();
+    await cartoRow.getByText('Active', { exact: true }).waitFor();
+    expect(await seatText(page)).toBe('2 of 3 staff seats');
+  });
+
   it('fits a phone screen: wide tables scroll inside their card, not the page', async () => {
     await page.setViewportSize({ width: 390, height: 844 });
     await page.getByRole('region', { name: 'Members' }).waitFor();
