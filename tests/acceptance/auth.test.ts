@@ -6,18 +6,16 @@ import { sessionSchema } from '../../shared/api/auth.schema.js';
 import { createApp } from '../../server/app.js';
 import { bootstrap, createLogger } from '../../server/bootstrap.js';
 import { loadConfig } from '../../server/config.js';
-import { Invitation, Membership, Studio, User } from '../../server/entities/index.js';
-import { hashPassword, hashToken } from '../../server/services/auth.service.js';
+import { Membership, Studio, User } from '../../server/entities/index.js';
+import { hashPassword } from '../../server/services/auth.service.js';
 import { addMember } from '../../server/services/people.service.js';
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_SEAT_COUNT, DEMO_STUDIO_NAME } from '../../server/seed/demo-studio.js';
 import { seedDemo } from '../../server/seed/index.js';
 import { anonymousClient, createStudioWithRoles, signedInClient } from '../support/studio-fixture.js';
-import { Client, caughtMail, createTestApp, mailTo } from '../support/test-app.js';
+import { Client, createTestApp } from '../support/test-app.js';
 
 const tag = () => randomBytes(4).toString('hex');
 const newEmail = (what: string) => `${what}.${tag()}@auth-test.warpmeter.test`;
-/** A made-up client address, so each rate-limit case counts in its own buckets (the app trusts loopback proxies). */
-const fakeIp = () => `10.${1 + Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${1 + Math.floor(Math.random() * 250)}`;
 const sidOf = (res: request.Response) =>
   ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('wm.sid='))?.split(';')[0];
 
@@ -159,136 +157,6 @@ describe('accounts and sessions', () => {
     expect(wrongToken.status).toBe(403);
     expect(wrongToken.body.error.code).toBe('csrf_failed');
     expect((await c.get('/api/auth/session')).body.user.email).toBe(email);
-  });
-});
-
-describe('rate limits', () => {
-  let t: Awaited<ReturnType<typeof createTestApp>>;
-  beforeAll(async () => {
-    t = await createTestApp();
-  });
-  afterAll(() => t.close());
-
-  async function clientFrom(ip: string) {
-    const c = new Client(t.app);
-    c.agent.set('X-Forwarded-For', ip);
-    await c.refreshCsrf();
-    return c;
-  }
-
-  it('refuses the 11th failed sign-in for one e-mail within 15 minutes with 429 and when to retry', async () => {
-    const s = await createStudioWithRoles(t);
-    const c = await clientFrom(fakeIp());
-    const email = s.users.editor.email;
-    for (let i = 1; i <= 10; i++) {
-      expect((await c.post('/api/auth/sign-in', { email, password: `wrong guess ${i}` })).status).toBe(401);
-    }
-    const eleventh = await c.post('/api/auth/sign-in', { email, password: s.users.editor.password });
-    expect(eleventh.status).toBe(429);
-    expect(eleventh.body.error.code).toBe('rate_limited');
-    expect(eleventh.body.error.message).toMatch(/wait (1[0-5] minutes|\d+ seconds)/);
-    // Other addresses and other e-mails are not held up.
-    const elsewhere = await clientFrom(fakeIp());
-    expect((await elsewhere.post('/api/auth/sign-in', { email, password: s.users.editor.password })).status).toBe(200);
-  });
-
-  it('does not count successful sign-ins', async () => {
-    const s = await createStudioWithRoles(t);
-    const ip = fakeIp();
-    for (let i = 0; i < 12; i++) {
-      const c = await clientFrom(ip);
-      expect((await c.post('/api/auth/sign-in', { email: s.users.client.email, password: s.users.client.password })).status).toBe(200);
-    }
-  });
-
-  it('refuses the 51st failed sign-in from one address, whatever the e-mail', async () => {
-    const c = await clientFrom(fakeIp());
-    const attempts = Array.from({ length: 50 }, (_, i) => c.post('/api/auth/sign-in', { email: `spray${i}.${tag()}@x.test`, password: 'guess-guess' }));
-    const codes = (await Promise.all(attempts)).map((r) => r.status);
-    expect(codes.every((code) => code === 401)).toBe(true);
-    const next = await c.post('/api/auth/sign-in', { email: `spray-last.${tag()}@x.test`, password: 'guess-guess' });
-    expect(next.status).toBe(429);
-    expect(next.body.error.message).toMatch(/from your network/);
-  });
-
-  it('refuses the 6th reset request for one e-mail within an hour', async () => {
-    const c = await clientFrom(fakeIp());
-    const email = newEmail('reset-spam');
-    for (let i = 0; i < 5; i++) expect((await c.post('/api/auth/reset-request', { email })).status).toBe(202);
-    const sixth = await c.post('/api/auth/reset-request', { email });
-    expect(sixth.status).toBe(429);
-    expect(sixth.body.error.message).toMatch(/password-reset requests.*wait/);
-  });
-});
-
-describe('password reset', () => {
-  let t: Awaited<ReturnType<typeof createTestApp>>;
-  beforeAll(async () => {
-    t = await createTestApp();
-  });
-  afterAll(() => t.close());
-
-  const tokenFrom = (text: string) => {
-    const m = text.match(/(https?:\/\/\S+\/reset-password\?token=([A-Za-z0-9_-]+))/);
-    if (!m) throw new Error(`no reset link in:\n${text}`);
-    return { link: m[1], token: decodeURIComponent(m[2]) };
-  };
-
-  it('mails a one-time link that sets a new password and signs out old sessions', async () => {
-    const s = await createStudioWithRoles(t);
-    const { email, password } = s.users.cartographer;
-    const anon = await s.anonymous();
-    const res = await anon.post('/api/auth/reset-request', { email });
-    expect(res.status).toBe(202);
-
-    const mail = await mailTo(email);
-    expect(mail.subject).toMatch(/new Warpmeter password/);
-    const { link, token } = tokenFrom(mail.text);
-    expect(link.startsWith(`${t.deps.config.publicUrl}/reset-password?token=`)).toBe(true);
-    // Only the SHA-256 of the token is stored.
-    const stored = await t.deps.dataSource.getRepository(Invitation).findOneByOrFail({ tokenHash: hashToken(token) });
-    expect(stored.kind).toBe('reset');
-    expect(JSON.stringify(await t.deps.dataSource.getRepository(Invitation).find())).not.toContain(token);
-
-    const preview = await anon.get(`/api/invitations/${token}`);
-    expect(preview.status).toBe(200);
-    expect(preview.body).toMatchObject({ kind: 'reset', email, role: null, studioName: null, hasAccount: true });
-
-    const done = await anon.post('/api/auth/reset', { token, password: 'a brand new password' });
-    expect(done.status).toBe(204);
-    expect((await s.cartographer.get('/api/auth/session')).body.user).toBeNull();
-
-    const oldPw = await (await s.anonymous()).post('/api/auth/sign-in', { email, password });
-    expect(oldPw.status).toBe(401);
-    const newPw = await (await s.anonymous()).post('/api/auth/sign-in', { email, password: 'a brand new password' });
-    expect(newPw.status).toBe(200);
-    expect(newPw.body.membership.role).toBe('cartographer');
-
-    const reuse = await anon.post('/api/auth/reset', { token, password: 'yet another password' });
-    expect(reuse.status).toBe(400);
-    expect(reuse.body.error.message).toMatch(/not valid any more/);
-  });
-
-  it('answers 202 for an unknown address and sends nothing', async () => {
-    const email = newEmail('ghost');
-    const res = await (await anonymousClient(t.app)).post('/api/auth/reset-request', { email });
-    expect(res.status).toBe(202);
-    await new Promise((r) => setTimeout(r, 400));
-    expect((await caughtMail()).some((m) => m.to.includes(email))).toBe(false);
-  });
-
-  it('refuses an expired or made-up token with 400 and changes nothing', async () => {
-    const s = await createStudioWithRoles(t);
-    const { email, password } = s.users.editor;
-    const anon = await s.anonymous();
-    await anon.post('/api/auth/reset-request', { email });
-    const { token } = tokenFrom((await mailTo(email)).text);
-    await t.deps.dataSource.getRepository(Invitation).update({ tokenHash: hashToken(token) }, { expiresAt: new Date(Date.now() - 1000) });
-    const expired = await anon.post('/api/auth/reset', { token, password: 'never gets stored' });
-    expect(expired.status).toBe(400);
-    const madeUp = await anon.post('/api/auth/reset', { token: 'A'.repeat(43), password: 'never gets stored' });
-    expect(madeUp.status).toBe(400);
-    expect((await (await s.anonymous()).post('/api/auth/sign-in', { email, password })).status).toBe(200);
   });
 });
 
