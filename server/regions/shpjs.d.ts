@@ -1,0 +1,8 @@
+// shpjs ships no type declarations; these cover the two parsers we call.
+declare module 'shpjs' {
+  import type { Geometry } from 'geojson';
+  /** Parses a .shp; with a .prj text, reprojects every coordinate to WGS84 lon/lat through proj4. */
+  export function parseShp(shp: ArrayBufferView | ArrayBuffer, prj?: string | false): (Geometry | null)[];
+  /** Parses a .dbf, decoding text with the .cpg code page (UTF-8 when absent or unknown). */
+  export function parseDbf(dbf: ArrayBufferView | ArrayBuffer, cpg?: string): Record<string, unknown>[];
+}

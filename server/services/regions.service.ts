@@ -1,0 +1,100 @@
+import type { DataSource } from 'typeorm';
+import type { FeaturePick, RegionInspection, RegionView, RegionWithGeometry } from '../../shared/api/regions.schema.js';
+import { MapProject, Region } from '../entities/index.js';
+import type { Actor } from '../http/actor.js';
+import { canonicalSha256 } from '../regions/canonical-json.js';
+import { checkRegionFile, inspection, pickedReport, pickFeatures, regionName } from '../regions/inspect-file.js';
+import { toGeometry } from '../regions/region-report.js';
+import type { UploadedFile } from '../regions/upload-middleware.js';
+import { loadProjectFor } from './project-guard.js';
+
+const toView = (r: Region): RegionView => ({
+  id: r.id,
+  projectId: r.projectId,
+  name: r.name,
+  sourceFileName: r.sourceFileName,
+  sourceFormat: r.sourceFormat,
+  sourceCrs: r.sourceCrs,
+  sha256: r.sha256,
+  areaKm2: r.areaKm2,
+  bbox: r.bbox as RegionView['bbox'],
+  vertexCount: r.vertexCount,
+  partCount: r.partCount,
+  holeCount: r.holeCount,
+  report: r.report as RegionView['report'],
+  isCurrent: r.isCurrent,
+  createdAt: r.createdAt.toISOString(),
+});
+
+/** Reads and checks a file for the feature picker; stores nothing. */
+export async function inspectRegion(ds: DataSource, actor: Actor, projectId: number, upload: UploadedFile): Promise<RegionInspection> {
+  await loadProjectFor(ds, actor, projectId, 'write');
+  return inspection(await checkRegionFile(upload.buffer, upload.fileName));
+}
+
+/**
+ * Stores the picked features of a file as the project's current region. Every check runs
+ * before the transaction; inside it, earlier regions stop being current and the new one is
+ * inserted, so a failure leaves the project as it was.
+ */
+export async function storeRegion(
+  ds: DataSource,
+  actor: Actor,
+  projectId: number,
+  upload: UploadedFile,
+  pick: FeaturePick,
+): Promise<RegionView> {
+  const project = await loadProjectFor(ds, actor, projectId, 'write');
+  const checked = await checkRegionFile(upload.buffer, upload.fileName);
+  const picked = pickFeatures(checked, pick);
+  const report = pickedReport(checked, picked);
+  const geometry = toGeometry(picked.flatMap((f) => f.polygons));
+  const saved = await ds.transaction(async (m) => {
+    const repo = m.getRepository(Region);
+    await repo.update({ projectId: project.id, studioId: actor.studioId, isCurrent: true }, { isCurrent: false });
+    const row = await repo.save(
+      repo.create({
+        projectId: project.id,
+        studioId: actor.studioId,
+        name: regionName(picked),
+        sourceFileName: upload.fileName,
+        sourceFormat: checked.file.format,
+        sourceCrs: checked.file.sourceCrs,
+        geometry,
+        sha256: canonicalSha256(geometry),
+        areaKm2: report.areaKm2,
+        bbox: report.bbox,
+        vertexCount: report.vertexCount,
+        partCount: report.partCount,
+        holeCount: report.holeCount,
+        report,
+        isCurrent: true,
+        createdById: actor.userId,
+      }),
+    );
+    await m.getRepository(MapProject).update({ id: project.id }, { updatedAt: () => 'CURRENT_TIMESTAMP(3)' });
+    return repo.findOneByOrFail({ id: row.id });
+  });
+  return toView(saved);
+}
+
+/** Every region uploaded to the project, newest first (without geometry). */
+export async function listRegions(ds: DataSource, actor: Actor, projectId: number): Promise<RegionView[]> {
+  const project = await loadProjectFor(ds, actor, projectId, 'read');
+  const rows = await ds.getRepository(Region).find({
+    select: {
+      id: true, projectId: true, name: true, sourceFileName: true, sourceFormat: true, sourceCrs: true, sha256: true,
+      areaKm2: true, bbox: true, vertexCount: true, partCount: true, holeCount: true, report: true, isCurrent: true, createdAt: true,
+    },
+    where: { projectId: project.id, studioId: actor.studioId },
+    order: { createdAt: 'DESC', id: 'DESC' },
+  });
+  return rows.map(toView);
+}
+
+/** The region audits use now, with its geometry for the preview map; null before any upload. */
+export async function currentRegion(ds: DataSource, actor: Actor, projectId: number): Promise<RegionWithGeometry | null> {
+  const project = await loadProjectFor(ds, actor, projectId, 'read');
+  const row = await ds.getRepository(Region).findOneBy({ projectId: project.id, studioId: actor.studioId, isCurrent: true });
+  return row ? { ...toView(row), geometry: row.geometry as RegionWithGeometry['geometry'] } : null;
+}
