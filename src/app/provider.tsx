@@ -10,8 +10,13 @@ configureCsrf({
   get: async () => (await queryClient.ensureQueryData(sessionQueryOptions())).csrfToken,
   refresh: async () => (await queryClient.fetchQuery({ ...sessionQueryOptions(), staleTime: 0 })).csrfToken,
 });
-// A 401 anywhere means the session ended: re-read it, and the frame sends the person to sign in.
-setSignedOutHandler(() => void queryClient.invalidateQueries({ queryKey: sessionQueryOptions().queryKey }));
+// A 401 anywhere means the session ended. Forget the member at once (so the sign-in page does not
+// bounce back on stale data), then re-read the session for a current CSRF token.
+setSignedOutHandler(() => {
+  const { queryKey } = sessionQueryOptions();
+  queryClient.setQueryData(queryKey, (old) => old && { ...old, user: null, membership: null });
+  void queryClient.invalidateQueries({ queryKey });
+});
 
 export function AppProvider({ children }: { children: ReactNode }) {
   return (

@@ -12,7 +12,8 @@ interface ToastApi {
 }
 
 const ToastContext = createContext<ToastApi | null>(null);
-const LIFETIME_MS = 6000;
+// Errors stay longer: the person may need to read them twice.
+const LIFETIME_MS: Record<ToastTone, number> = { success: 6000, info: 6000, error: 12000 };
 
 const TONES: Record<ToastTone, string> = {
   success: 'border-l-moss-700',
@@ -32,7 +33,7 @@ export function ToastProvider({ children }: { children: ReactNode }) {
     (message: string, tone: ToastTone = 'success') => {
       const id = next.current++;
       setToasts((all) => [...all.slice(-3), { id, tone, message }]);
-      window.setTimeout(() => dismiss(id), LIFETIME_MS);
+      window.setTimeout(() => dismiss(id), LIFETIME_MS[tone]);
     },
     [dismiss],
   );
