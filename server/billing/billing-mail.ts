@@ -19,7 +19,8 @@ export function receiptMail(p: { studioName: string; invoice: Stripe.Invoice; bi
   const paidAt = new Date((inv.status_transitions?.paid_at ?? inv.created) * 1000);
   return {
     template: 'billing-receipt',
-    subject: `Receipt ${inv.number ?? ''}: ${money(inv.amount_paid, inv.currency)} paid for ${p.studioName}`.replace('  ', ' '),
+    // Amounts stay out of the subject: currency signs there need MIME encoding some readers garble.
+    subject: `Receipt for invoice ${inv.number ?? inv.id} (${p.studioName})`,
     text: [
       `Thank you. We received ${money(inv.amount_paid, inv.currency)} for ${p.studioName}'s staff seats on ${day(paidAt)}.`,
       '',

@@ -24,17 +24,15 @@ const belowUse = (used: number) =>
 
 const rows = (m: EntityManager) => m.getRepository(SeatSubscription);
 
-/** The studio's customer at the provider, created (and stored on its own) the first time. */
-async function ensureCustomer(deps: AppDeps, actor: Actor): Promise<void> {
-  const pay = payClient(deps);
-  await deps.dataSource.transaction(async (m) => {
-    const studio = await lockStudio(m, actor.studioId);
-    if (await rows(m).findOneBy({ studioId: studio.id })) return;
-    const customer = await viaProvider(() =>
-      pay.customers.create({ email: actor.email, name: studio.name, metadata: { studioId: String(studio.id) } }),
-    );
-    await rows(m).insert({ studioId: studio.id, customerId: customer.id, status: 'none', quantity: 0, lastEventCreated: 0 });
-  });
+/** Refuses a start when the studio already pays, or when fewer seats than are in use are asked for. */
+async function checkStart(m: EntityManager, studioId: number, quantity: number): Promise<SeatSubscription | null> {
+  const row = await rows(m).findOneBy({ studioId });
+  if (row && (row.status === 'active' || row.status === 'past_due')) {
+    throw conflict('This studio already has a seat subscription. Change the number of seats instead.');
+  }
+  const used = await countStaffSeatsUsed(m, studioId);
+  if (quantity < used) throw belowUse(used);
+  return row;
 }
 
 /** Attaches a card to the customer and makes it the one invoices are charged to. */
@@ -44,19 +42,25 @@ async function attachDefaultCard(pay: Stripe, row: SeatSubscription, paymentMeth
   return pm;
 }
 
-/** `POST /api/billing/subscription`: buys `quantity` staff seats, paid now for the first period. */
+/**
+ * `POST /api/billing/subscription`: buys `quantity` staff seats, paid now for the first period.
+ * The studio's customer at the provider is created and stored first, on its own, so a declined
+ * card leaves a customer to reuse rather than one Warpmeter forgot.
+ */
 export async function startSubscription(deps: AppDeps, actor: Actor, input: StartSubscriptionInput): Promise<void> {
   const pay = payClient(deps);
   const plan = await viaProvider(() => seatPlan(pay));
-  await ensureCustomer(deps, actor);
+  await deps.dataSource.transaction(async (m) => {
+    const studio = await lockStudio(m, actor.studioId);
+    if (await checkStart(m, studio.id, input.quantity)) return;
+    const customer = await viaProvider(() =>
+      pay.customers.create({ email: actor.email, name: studio.name, metadata: { studioId: String(studio.id) } }),
+    );
+    await rows(m).insert({ studioId: studio.id, customerId: customer.id, status: 'none', quantity: 0, lastEventCreated: 0 });
+  });
   await deps.dataSource.transaction(async (m) => {
     await lockStudio(m, actor.studioId);
-    const row = (await rows(m).findOneBy({ studioId: actor.studioId }))!;
-    if (row.status === 'active' || row.status === 'past_due') {
-      throw conflict('This studio already has a seat subscription. Change the number of seats instead.');
-    }
-    const used = await countStaffSeatsUsed(m, actor.studioId);
-    if (input.quantity < used) throw belowUse(used);
+    const row = (await checkStart(m, actor.studioId, input.quantity))!;
     const pm = await attachDefaultCard(pay, row, input.paymentMethod);
     // error_if_incomplete: when the first payment fails the provider creates nothing, so no
     // half-started subscription exists anywhere.

@@ -6,12 +6,13 @@ import type { TestProject } from 'vitest/node';
 import { loadConfig } from '../../server/config.js';
 import { createDataSource } from '../../server/data-source.js';
 import { startFakeSmtp, type FakeSmtp } from '../../server/fakes/smtp.js';
+import { startFakePay } from '../../server/fakes/pay.js';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
 
 /**
  * Once per test run: make sure MariaDB and Redis are up (installing them when missing), create a
- * fresh database for this run, migrate it, and start this run's own fake SMTP server.
+ * fresh database for this run, migrate it, and start this run's own fake SMTP and payment servers.
  * Environment variables set here reach the test workers, which build their apps from them.
  */
 export default async function setup(project: TestProject) {
@@ -29,6 +30,10 @@ export default async function setup(project: TestProject) {
   await ds.destroy();
 
   const smtp: FakeSmtp = await startFakeSmtp();
+  // This run's own payment provider; tests that need its webhooks point it at their app through
+  // its control route `POST /_fake/config {webhookUrl}`.
+  const pay = await startFakePay({ webhookSecret: loadConfig().pay.webhookSecret });
+  process.env.WARPMETER_PAY_PORT = String(pay.port);
   process.env.WARPMETER_DB_NAME = dbName;
   process.env.WARPMETER_SMTP_PORT = String(smtp.smtpPort);
   process.env.WARPMETER_MAILBOX_URL = `http://127.0.0.1:${smtp.httpPort}`;
@@ -38,6 +43,7 @@ export default async function setup(project: TestProject) {
 
   return async () => {
     await smtp.close();
+    await pay.close();
     if (!process.env.WARPMETER_KEEP_TEST_DB) await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
     await admin.end();
   };
