@@ -1,3 +1,4 @@
+import { meridianCrossingLatDeg } from './geodesic-crossing.js';
 import { ringShape, type Ring } from './ring-shape.js';
 
 /**
@@ -5,7 +6,8 @@ import { ringShape, type Ring } from './ring-shape.js';
  * split at the antimeridian) and that planar code (point-in-polygon, shoelace, bounding boxes)
  * reads correctly in lon/lat:
  * - a ring that crosses the antimeridian and comes back is cut along ±180° into an east and a
- *   west part (Sutherland–Hodgman clipping of the unwrapped ring against the meridian);
+ *   west part (Sutherland–Hodgman clipping of the unwrapped ring against the meridian, each
+ *   edge cut where its geodesic meets the meridian, so geodesic areas are kept);
  * - a ring that goes once round a pole without touching it is read as the border of the polar
  *   cap on its side and closed explicitly along ±180° and the pole line, as Natural Earth draws
  *   Antarctica. Inside one polygon the largest such cap is the outer ring, smaller ones holes.
@@ -52,8 +54,7 @@ function clip(ring: Pt[], cut: number, keep: 'west' | 'east'): Pt[] {
     const b = ring[i + 1];
     if (inside(a)) out.push(a);
     if (inside(a) !== inside(b) && a[0] !== cut && b[0] !== cut) {
-      const t = (cut - a[0]) / (b[0] - a[0]);
-      out.push([cut, a[1] + t * (b[1] - a[1])]);
+      out.push([cut, meridianCrossingLatDeg(a, b, cut)]);
     }
   }
   if (out.length) out.push([out[0][0], out[0][1]]);
@@ -100,7 +101,7 @@ function closeRoundPole(ring: Ring, pole: 'north' | 'south'): Ring | null {
   const eastward = b[0] - a[0] < -180; // e.g. 179° → −179° is a step east over 180°
   const edge = eastward ? 180 : -180;
   const bx = eastward ? b[0] + 360 : b[0] - 360;
-  const latX = a[1] + ((edge - a[0]) / (bx - a[0])) * (b[1] - a[1]);
+  const latX = meridianCrossingLatDeg(a, [bx, b[1]], edge);
   const poleLat = pole === 'north' ? 90 : -90;
   const body: Ring = [...ring.slice(i, ring.length - 1), ...ring.slice(0, i)];
   const out: Ring = [[-edge, latX], ...body, [edge, latX], [edge, poleLat], [-edge, poleLat], [-edge, latX]];
