@@ -17,6 +17,12 @@ const BLOCK = 25_000;
 /** Geodesic pairs for the finite-distance error. */
 const PAIRS = 2_000;
 const DEG = Math.PI / 180;
+/**
+ * Most samples whose fields are stored per candidate (every k-th sample beyond it, k fixed by the
+ * count): enough for heatmap domains, worst points and exports, while a million-sample audit's
+ * scorecards stay a few megabytes. The scorecard itself always uses every sample.
+ */
+export const STORED_FIELD_CAP = 50_000;
 
 const ringsOf = (g: Polygon | MultiPolygon) => (g.type === 'Polygon' ? g.coordinates : g.coordinates.flat());
 
@@ -61,9 +67,23 @@ export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress
       y[i] = xy[1];
     }
     const metrics = scoreInterim({ s, omegaDeg, a, b }, { x, y }, pairs);
-    out.push({ candidateId: cand.id, metrics: metrics as unknown as Record<string, unknown>, fields });
+    out.push({ candidateId: cand.id, metrics: metrics as unknown as Record<string, unknown>, fields: capFields(fields) });
   }
   return { candidates: out, timingsMs: { samplingMs: Math.round(tSample), computeMs: Math.round(performance.now() - t0) } };
+}
+
+/** Every k-th sample's fields, k = ⌈n / STORED_FIELD_CAP⌉. */
+function capFields<T extends Record<string, Float64Array | Float32Array>>(f: T): T {
+  const n = f.lonDeg.length;
+  const stride = Math.ceil(n / STORED_FIELD_CAP);
+  if (stride <= 1) return f;
+  const out = {} as Record<string, Float64Array | Float32Array>;
+  for (const [key, arr] of Object.entries(f)) {
+    const picked = new (arr.constructor as Float64ArrayConstructor | Float32ArrayConstructor)(Math.ceil(n / stride));
+    for (let i = 0, j = 0; i < n; i += stride, j++) picked[j] = arr[i];
+    out[key] = picked;
+  }
+  return out as T;
 }
 
 let shared: Promise<{ pool: FactorPool; engine: AuditEngine }> | undefined;
