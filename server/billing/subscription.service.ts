@@ -115,8 +115,9 @@ export async function updatePaymentMethod(deps: AppDeps, actor: Actor, paymentMe
     applyCard(r, await attachDefaultCard(pay, r, paymentMethod));
     return rows(m).save(r);
   });
-  if (row.status !== 'past_due') return;
+  // Asks the provider rather than the local status: a failure's webhook may not have arrived yet.
   const open = await viaProvider(() => pay.invoices.list({ customer: row.customerId, subscription: row.subscriptionId!, status: 'open' }));
+  if (!open.data.length) return;
   let declined = 0;
   for (const inv of open.data) {
     try {

@@ -32,8 +32,11 @@ function verify(deps: AppDeps, raw: Buffer, signature: string | undefined): Stri
   }
 }
 
-const customerOf = (obj: { customer?: string | { id: string } | null }) =>
-  typeof obj.customer === 'string' ? obj.customer : (obj.customer?.id ?? null);
+/** The provider customer an event is about (customer events carry the customer itself). */
+function customerOf(obj: { object?: string; id?: string; customer?: string | { id: string } | null }): string | null {
+  if (obj.object === 'customer') return obj.id ?? null;
+  return typeof obj.customer === 'string' ? obj.customer : (obj.customer?.id ?? null);
+}
 
 /**
  * `POST /api/billing/webhook`. Each verified event is stored once, by its id, in the same
