@@ -12,7 +12,7 @@ import { listActivity } from '../services/activity.service.js';
 import { addComment, listComments } from '../services/comments.service.js';
 import { idParam, loadProjectFor } from '../services/project-guard.js';
 import { createRound, getRound, listReviewRequests, listRounds } from '../services/review.service.js';
-import { approveRound, getProjectSignOff, getSignOff, returnRound } from '../services/signoff.service.js';
+import { approveRound, getProjectSignOff, getSignOff, returnRound, signOffSheet, verifySignOff } from '../services/signoff.service.js';
 
 const STAFF = ['admin', 'cartographer', 'editor'] as const;
 
@@ -103,6 +103,24 @@ export function reviewRoutes(deps: AppDeps): RouteSpec[] {
     immutable('put'),
     immutable('patch'),
     immutable('delete'),
+    {
+      method: 'post',
+      path: '/signoffs/:signOffId/verify',
+      access: ALL_ROLES,
+      summary: 'Re-run the approved audit from the stored inputs and compare the numbers and the hash',
+      handler: (req) => verifySignOff(deps, req.actor!, idParam(req.params.signOffId, 'That sign-off record')),
+    },
+    {
+      method: 'get',
+      path: '/signoffs/:signOffId/sheet.pdf',
+      access: ALL_ROLES,
+      summary: 'The sign-off sheet as a PDF',
+      handler: async (req, res) => {
+        const { pdf, fileName } = await signOffSheet(deps, req.actor!, idParam(req.params.signOffId, 'That sign-off record'));
+        res.set({ 'content-type': 'application/pdf', 'content-disposition': `inline; filename="${fileName}"`, 'cache-control': 'private, no-store' });
+        res.send(pdf);
+      },
+    },
     {
       method: 'get',
       path: '/projects/:projectId/comments',

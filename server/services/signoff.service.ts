@@ -1,12 +1,16 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
-import type { ApproveRoundInput, ReturnRoundInput, RoundView, SignOffView } from '../../shared/api/review.schema.js';
+import type { ApproveRoundInput, ReturnRoundInput, RoundView, SignOffView, VerifyResult } from '../../shared/api/review.schema.js';
 import type { AppDeps } from '../deps.js';
 import { Audit, Candidate, MapProject, Region, ReviewRound, Scorecard, SignOff, User } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, forbidden, notFound, validationFailed } from '../http/errors.js';
+import { ENGINE_VERSION, sharedAuditEngine } from '../jobs/engine-instance.js';
 import { decisionMail } from '../signoff/mail.js';
 import { buildRecord, sealRecord } from '../signoff/record.js';
 import { isRecipient, roundViews } from '../signoff/round-view.js';
+import { sheetDataFor } from '../signoff/sheet-data.js';
+import { renderSheetPdf } from '../signoff/sheet-pdf.js';
+import { verifyRecord } from '../signoff/verify.js';
 import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 
@@ -160,4 +164,28 @@ export async function getProjectSignOff(ds: DataSource, actor: Actor, projectId:
   const s = await ds.getRepository(SignOff).findOneBy({ projectId, studioId: actor.studioId });
   if (!s) throw notFound('A sign-off for this project');
   return toSignOffView(s, null);
+}
+
+/**
+ * Re-runs the approved candidate's audit from the record alone (on this process's engine) and
+ * reports whether the numbers and the hash come out the same. Writes one history line.
+ */
+export async function verifySignOff(deps: AppDeps, actor: Actor, signOffId: number): Promise<VerifyResult> {
+  const s = await loadSignOff(deps.dataSource, actor, signOffId);
+  const result = await verifyRecord(s, await sharedAuditEngine(), ENGINE_VERSION);
+  await recordActivity(deps.dataSource, {
+    projectId: s.projectId, studioId: s.studioId, actor, kind: 'signoff.verified',
+    summary: result.hashMatches
+      ? `Verified the sign-off record: re-run gives the same hash`
+      : `Verified the sign-off record: ${result.differences.length} metric(s) differ, hash does not match`,
+    details: { signOffId: s.id, hashMatches: result.hashMatches, metricsMatch: result.metricsMatch, recomputedHash: result.recomputedHash },
+  });
+  return result;
+}
+
+/** The A4 sign-off sheet as PDF bytes, with a file name for the download. */
+export async function signOffSheet(deps: AppDeps, actor: Actor, signOffId: number): Promise<{ pdf: Buffer; fileName: string }> {
+  const s = await loadSignOff(deps.dataSource, actor, signOffId);
+  const pdf = await renderSheetPdf(await sheetDataFor(deps, actor, s));
+  return { pdf, fileName: `sign-off-${s.projectId}-${s.recordHash.slice(0, 12)}.pdf` };
 }

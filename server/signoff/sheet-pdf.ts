@@ -8,6 +8,8 @@ export interface SheetHeatmap {
   png: Buffer;
   /** One line under the image: what the colours mean. */
   legend: string;
+  /** The colour ramp as stops (t from 0 to 1), drawn as a bar under the image. */
+  stops?: Array<{ t: number; color: string }>;
 }
 
 export interface SheetData {
@@ -113,11 +115,16 @@ export function renderSheetPdf(d: SheetData): Promise<Buffer> {
       const x = MARGIN + i * (size + gap);
       doc.rect(x, top, size, size).lineWidth(0.5).strokeColor('#cbd2d9').stroke();
       doc.image(h.png, x, top, { fit: [size, size], align: 'center', valign: 'center' });
-      doc.font(fonts.bold).fontSize(8.5).fillColor(INK).text(t(h.title), x, top + size + 4, { width: size });
+      if (h.stops?.length) {
+        const bar = doc.linearGradient(x, 0, x + size, 0);
+        for (const st of h.stops) bar.stop(st.t, st.color);
+        doc.rect(x, top + size + 3, size, 5).fill(bar);
+      }
+      doc.font(fonts.bold).fontSize(8.5).fillColor(INK).text(t(h.title), x, top + size + 11, { width: size });
       doc.font(fonts.regular).fontSize(7.5).fillColor(MUTED).text(t(h.legend), x, doc.y, { width: size });
     });
     doc.x = MARGIN;
-    doc.y = top + size + 44;
+    doc.y = top + size + 52;
   }
 
   heading('Recommendation sent with the shortlist');

@@ -1,7 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ReviewRound, SignOff } from '../../server/entities/index.js';
-import { seedAuditedProject, type AuditedProject } from '../support/signoff-fixture.js';
+import { engineScore, seedAuditedProject, type AuditedProject } from '../support/signoff-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { caughtMail, Client, createTestApp, mailTo } from '../support/test-app.js';
 
@@ -280,5 +280,35 @@ describe('comments and history', () => {
     expect(history.map((e: { kind: string }) => e.kind)).toEqual(['comment.added', 'comment.added', 'round.requested']);
     expect(history[2]).toMatchObject({ actorName: s.users.editor.name, actorRole: 'editor' });
     expect((await s.client.get(`/api/projects/${p.projectId}/activity`)).status).toBe(403);
+  });
+});
+
+describe('verify re-runs the audit from the stored inputs', () => {
+  it('reproduces the same numbers and the same hash, for staff and for the reviewer', async () => {
+    const p = await seedAuditedProject(t.deps, s, { title: 'Verify', score: engineScore, samples: 3000, seed: 4242 });
+    const round = await sendRound(p, [s.users.client.email], [p.candidateIds[0], p.candidateIds[2]]);
+    const approved = await s.client.post(`/api/rounds/${round.id}/approve`, { candidateId: p.candidateIds[2], signature: s.users.client.name });
+    expect(approved.status).toBe(201);
+    for (const c of [s.editor, s.client]) {
+      const res = await c.post(`/api/signoffs/${approved.body.id}/verify`);
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      expect(res.body).toMatchObject({ recordIntact: true, regionHashMatches: true, metricsMatch: true, hashMatches: true, differences: [] });
+      expect(res.body.recomputedHash).toBe(approved.body.recordHash);
+    }
+    const events = (await s.editor.get(`/api/projects/${p.projectId}/activity`)).body.events;
+    expect(events[0]).toMatchObject({ kind: 'signoff.verified', actorRole: 'client' });
+  });
+
+  it('reports the differences when the stored scorecard is not what the engine gives', async () => {
+    // Scorecards with made-up numbers stand for a record whose figures were not produced by this engine.
+    const p = await seedAuditedProject(t.deps, s, { title: 'Verify mismatch', samples: 2000 });
+    const round = await sendRound(p, [s.users.client.email]);
+    const approved = await s.client.post(`/api/rounds/${round.id}/approve`, { candidateId: p.candidateIds[0], signature: s.users.client.name });
+    const res = await s.editor.post(`/api/signoffs/${approved.body.id}/verify`);
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ recordIntact: true, metricsMatch: false, hashMatches: false });
+    expect(res.body.recomputedHash).not.toBe(approved.body.recordHash);
+    expect(res.body.differences.map((d: { metric: string }) => d.metric)).toContain('arealScale.maxMinRatio');
+    expect((await other.editor.post(`/api/signoffs/${approved.body.id}/verify`)).status).toBe(404);
   });
 });

@@ -1,6 +1,8 @@
 import type { Polygon } from 'geojson';
 import { Audit, Candidate, Region, Scorecard } from '../../server/entities/index.js';
 import type { AppDeps } from '../../server/deps.js';
+import { ENGINE_VERSION, sharedAuditEngine } from '../../server/jobs/engine-instance.js';
+import { encodeFields } from '../../server/jobs/fields-codec.js';
 import { canonicalSha256 } from '../../server/regions/canonical-json.js';
 import type { StudioFixture } from './studio-fixture.js';
 
@@ -8,7 +10,8 @@ import type { StudioFixture } from './studio-fixture.js';
  * A project with a region, three candidates and one finished audit, ready to shortlist. The
  * project goes through the projects API; the region, candidates, audit and scorecards are written
  * straight to the database so review tests do not wait on uploads or background jobs. Pass
- * `score` to fill the scorecards with real engine output (needed when a test verifies a record).
+ * `score: engineScore` to fill the scorecards with the audit engine's real output and sample fields
+ * (needed when a test verifies a record or draws heatmaps).
  */
 export interface AuditedProject {
   projectId: number;
@@ -53,16 +56,31 @@ export const SEED_GEOMETRY: Polygon = {
   coordinates: [[[0, 44], [5, 44], [5, 49], [0, 49], [0, 44]]],
 };
 
+export interface ScoredCandidate {
+  metrics: Record<string, unknown>;
+  /** Packed sample fields (heatmaps need them); null when the scorer made none. */
+  fields: Buffer | null;
+}
+
 export type ScoreFn = (input: {
   geometry: Polygon;
   candidates: Array<CandidateSeed & { id: number }>;
   samples: number;
   seed: number;
-}) => Promise<Map<number, Record<string, unknown>>>;
+}) => Promise<Map<number, ScoredCandidate>>;
 
 /** Plausible but made-up metrics, distinct per candidate, for tests that never re-run the engine. */
 const fakeScore: ScoreFn = async ({ candidates }) =>
-  new Map(candidates.map((c, i) => [c.id, { arealScale: { mean: 1 + i / 100, max: 1.02 + i / 50 }, angularDeformationDeg: { max: i * 0.7 } }]));
+  new Map(
+    candidates.map((c, i) => [c.id, { metrics: { arealScale: { maxMinRatio: 1.01 + i / 100 }, omegaDeg: { mean: i * 0.4, max: i * 0.7 } }, fields: null }]),
+  );
+
+/** Scores with the audit engine itself (the one the background jobs run), as an audit would. */
+export const engineScore: ScoreFn = async ({ geometry, candidates, samples, seed }) => {
+  const engine = await sharedAuditEngine();
+  const result = await engine.scoreCandidates({ geometry, candidates, samples, seed }, async () => {});
+  return new Map(result.candidates.map((r) => [r.candidateId, { metrics: r.metrics, fields: encodeFields(r.fields) }]));
+};
 
 export async function seedAuditedProject(
   deps: AppDeps,
@@ -98,17 +116,18 @@ export async function seedAuditedProject(
     );
     candidates.push({ ...c, id: row.id });
   }
-  const metricsById = await (opts.score ?? fakeScore)({ geometry, candidates, samples, seed });
+  const scored = await (opts.score ?? fakeScore)({ geometry, candidates, samples, seed });
+  const metricsById = new Map([...scored].map(([id, v]) => [id, v.metrics]));
   const settings = { samples, seed, candidates: candidates.map((c) => ({ id: c.id, label: c.label, family: c.family, definition: c.definition, resolved: c.resolved })) };
   const audit = await ds.getRepository(Audit).save(
     ds.getRepository(Audit).create({
       projectId, studioId, regionId: region.id, candidateIds: candidates.map((c) => c.id), status: 'done', progress: 1,
-      settings, engineVersion: opts.engineVersion ?? 'test-seed', inputHash: canonicalSha256({ region: region.sha256, settings }),
+      settings, engineVersion: opts.engineVersion ?? (opts.score === engineScore ? ENGINE_VERSION : 'test-seed'), inputHash: canonicalSha256({ region: region.sha256, settings }),
       createdById, startedAt: new Date(), finishedAt: new Date(),
     }),
   );
   await ds.getRepository(Scorecard).insert(
-    candidates.map((c) => ({ auditId: audit.id, candidateId: c.id, studioId, metrics: metricsById.get(c.id)!, fields: null })),
+    candidates.map((c) => ({ auditId: audit.id, candidateId: c.id, studioId, metrics: scored.get(c.id)!.metrics, fields: scored.get(c.id)!.fields })),
   );
   return { projectId, regionId: region.id, auditId: audit.id, candidateIds: candidates.map((c) => c.id), geometry, metricsById };
 }
