@@ -1,3 +1,4 @@
+import { crc32 } from 'node:zlib';
 import JSZip from 'jszip';
 import { invalidRegion, mb, regionTooLarge, UPLOAD_LIMITS } from './region-errors.js';
 
@@ -6,13 +7,14 @@ export interface ZipEntryInfo {
   name: string;
   compressedBytes: number;
   uncompressedBytes: number;
+  crc32: number | undefined;
   entry: JSZip.JSZipObject;
 }
 
 // JSZip keeps the sizes it read from the central directory on the (untyped) _data object, and
 // its chunked decompression stream (internalStream) is public API missing from its typings.
 type SizedEntry = JSZip.JSZipObject & {
-  _data?: { compressedSize?: number; uncompressedSize?: number };
+  _data?: { compressedSize?: number; uncompressedSize?: number; crc32?: number };
   unsafeOriginalName?: string;
 };
 interface ChunkStream {
@@ -42,7 +44,9 @@ export function isUnsafeZipPath(name: string): boolean {
 export async function openZip(buffer: Buffer, fileName: string): Promise<ZipEntryInfo[]> {
   let zip: JSZip;
   try {
-    zip = await JSZip.loadAsync(buffer, { checkCRC32: true, createFolders: false });
+    // checkCRC32 would decompress every entry inside loadAsync, before our size checks: we check
+    // each CRC ourselves while unpacking (readZipEntry).
+    zip = await JSZip.loadAsync(buffer, { checkCRC32: false, createFolders: false });
   } catch (err) {
     throw invalidRegion(`${fileName} is not a readable zip archive (${(err as Error).message.replace(/\s+/g, ' ').slice(0, 120)}).`);
   }
@@ -69,7 +73,7 @@ export async function openZip(buffer: Buffer, fileName: string): Promise<ZipEntr
         `${fileName}: "${original}" would expand ${Math.round(uncompressedBytes / Math.max(compressedBytes, 1))}× (from ${mb(compressedBytes)} to ${mb(uncompressedBytes)}), which only decompression bombs do; the file was refused.`,
       );
     }
-    entries.push({ name: original, compressedBytes, uncompressedBytes, entry: e });
+    entries.push({ name: original, compressedBytes, uncompressedBytes, crc32: e._data?.crc32, entry: e });
   }
   return entries;
 }
@@ -77,6 +81,7 @@ export async function openZip(buffer: Buffer, fileName: string): Promise<ZipEntr
 /**
  * Decompresses one entry, counting bytes as they come out: an entry whose data unpacks to more
  * than its central directory declared (a forged header) is stopped at that size, not after.
+ * The result must have exactly the declared size and CRC-32 (PKWARE APPNOTE 4.4.7).
  */
 export function readZipEntry(info: ZipEntryInfo): Promise<Buffer> {
   const cap = info.uncompressedBytes;
@@ -105,7 +110,12 @@ export function readZipEntry(info: ZipEntryInfo): Promise<Buffer> {
       .on('end', () => {
         if (done) return;
         done = true;
-        resolve(Buffer.concat(chunks, got));
+        const data = Buffer.concat(chunks, got);
+        if (got !== cap) {
+          reject(invalidRegion(`"${info.name}" unpacks to ${got} bytes, not the ${cap} its zip header declares; the archive is damaged.`));
+        } else if (info.crc32 !== undefined && crc32(data) >>> 0 !== info.crc32 >>> 0) {
+          reject(invalidRegion(`"${info.name}" is damaged: its checksum (CRC-32) does not match the zip header.`));
+        } else resolve(data);
       })
       .resume();
   });
