@@ -24,6 +24,20 @@ export function zodFields(err: ZodError): Record<string, string> {
   return fields;
 }
 
+/** An http-errors style 4xx from Express or body-parser (they set `status` and `expose`). */
+function clientFault(err: unknown): err is { status: number; type?: string } {
+  const e = err as { status?: unknown; expose?: unknown };
+  return typeof e?.status === 'number' && e.status >= 400 && e.status < 500 && e.expose !== false;
+}
+
+function clientFaultBody(err: { status: number; type?: string; message?: string }): { code: string; message: string } {
+  if (err.type === 'encoding.unsupported') return { code: 'unsupported_encoding', message: 'Send the request body uncompressed, or compressed with gzip or deflate.' };
+  if (err.type === 'charset.unsupported') return { code: 'unsupported_charset', message: 'Send the request body as UTF-8.' };
+  if (/decode param/i.test(err.message ?? '')) return { code: 'bad_url', message: 'The address contains a malformed %-escape.' };
+  if (err.status === 413) return { code: 'too_large', message: 'The request body is too large.' };
+  return { code: 'bad_request', message: 'The request could not be read.' };
+}
+
 export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}.` } });
 };
@@ -45,6 +59,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (err?.type === 'entity.too.large') {
     status = 413;
     body = { code: 'too_large', message: 'The request body is too large.' };
+  } else if (clientFault(err)) {
+    // Refusals raised by Express or body-parser themselves (a malformed %-escape in the path, a
+    // compressed or non-UTF-8 body): the caller's fault, so a 4xx in our words, not a 500.
+    status = err.status;
+    body = clientFaultBody(err);
   } else if (isServiceDown(err)) {
     status = 503;
     body = { code: 'unavailable', message: 'The database is not reachable right now. Please try again in a moment.' };
