@@ -25,7 +25,7 @@ function handle(msg: WorkerRequest): void {
     if (!ev) evaluators.set(key, (ev = createFactorEvaluator(msg.resolved)));
     const out = allocFactorArrays(msg.lonDeg.length);
     ev.factorsBatchDeg(msg.lonDeg, msg.latDeg, out);
-    const buffers = Object.values(out).map((a) => (a as Float64Array).buffer);
+    const buffers = Object.values(out).map((a) => (a as Float64Array).buffer as ArrayBuffer);
     parentPort!.postMessage({ id: msg.id, ok: true, result: out }, buffers);
   } catch (err) {
     parentPort!.postMessage({ id: msg.id, ok: false, error: err instanceof Error ? err.message : String(err) });

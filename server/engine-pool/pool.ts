@@ -82,7 +82,7 @@ export class FactorPool {
       const end = Math.min(n, start + size);
       const lon = copyRange(lonDeg, start, end);
       const lat = copyRange(latDeg, start, end);
-      jobs.push(this.send({ kind: 'points', resolved, lonDeg: lon, latDeg: lat }, [lon.buffer, lat.buffer]));
+      jobs.push(this.send({ kind: 'points', resolved, lonDeg: lon, latDeg: lat }, [lon.buffer as ArrayBuffer, lat.buffer as ArrayBuffer]));
     }
     const results = await Promise.all(jobs);
     const out = allocFactorArrays(n);
