@@ -9,8 +9,9 @@ import { majorAxisAngleRad } from '../heatmaps/tissot-ellipse.js';
 import type { CandidateContext } from './heatmaps.service.js';
 
 const VIEW = 1000;
-/** Tissot ellipses per side of the frame's lattice. */
-const LATTICE = 7;
+/** Tissot ellipses per side of the frame's lattice: the first of these that puts MIN_ELLIPSES inside the region. */
+const LATTICES = [7, 9, 12, 16, 20, 24];
+const MIN_ELLIPSES = 20;
 /** The median ellipse's semi-major axis as a share of the lattice spacing. */
 const ELLIPSE_FILL = 0.38;
 const WORST_PER_KIND = 3;
@@ -69,10 +70,11 @@ export function overlay(ctx: CandidateContext): OverlayView {
   const mask = rasterMask(ringsToPixels(rings, frame, MASK), MASK, MASK);
   const ll = new Float64Array(2);
   const f = new Float64Array(8);
+  const lattice = LATTICES.find((n) => latticeInside(mask, MASK, n) >= MIN_ELLIPSES) ?? LATTICES[LATTICES.length - 1];
   const raw: Omit<OverlayView['tissot'][number], 'rx' | 'ry'>[] = [];
-  for (let j = 0; j < LATTICE; j++) {
-    for (let i = 0; i < LATTICE; i++) {
-      const u = (i + 0.5) / LATTICE, v = (j + 0.5) / LATTICE;
+  for (let j = 0; j < lattice; j++) {
+    for (let i = 0; i < lattice; i++) {
+      const u = (i + 0.5) / lattice, v = (j + 0.5) / lattice;
       if (!mask[Math.floor(v * MASK) * MASK + Math.floor(u * MASK)]) continue;
       const x = frame.cx + (u - 0.5) * frame.span, y = frame.cy + (0.5 - v) * frame.span;
       if (!ctx.projection.inverse(x, y, ll) || !ctx.projection.factors(ll[0], ll[1], f)) continue;
@@ -84,10 +86,17 @@ export function overlay(ctx: CandidateContext): OverlayView {
   }
   const sortedA = raw.map((e) => e.a).sort((p, q) => p - q);
   const medianA = sortedA[Math.floor(sortedA.length / 2)] ?? 1;
-  const unit = (ELLIPSE_FILL * VIEW) / LATTICE / medianA;
+  const unit = (ELLIPSE_FILL * VIEW) / lattice / medianA;
   const tissot = raw.map((e) => ({ ...e, rx: r2(e.a * unit), ry: r2(e.b * unit) }));
 
   return { candidateId: ctx.candidate.id, frame, viewBoxSize: VIEW, outline, graticule, tissot, worst: worstSamples(ctx, frame) };
+}
+
+/** How many points of an n × n lattice over the frame fall inside the region's mask. */
+function latticeInside(mask: Uint8Array, maskSize: number, n: number): number {
+  let count = 0;
+  for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) count += mask[Math.floor(((j + 0.5) / n) * maskSize) * maskSize + Math.floor(((i + 0.5) / n) * maskSize)];
+  return count;
 }
 
 /** The samples with the largest |ln s|, ω and scale error, WORST_PER_KIND of each. */
