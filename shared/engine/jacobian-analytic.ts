@@ -15,6 +15,9 @@ import type { Proj4Projection } from './proj4-object';
  * Transverse Mercator on the sphere: B = cos φ sin Δλ, x = a k₀ atanh B, y = a k₀ atan2(tan φ, cos Δλ)
  * (eqs. 8-1, 8-3); differentiated directly, since proj4 forms y through an acos that loses half
  * the digits near the equator.
+ * Mollweide (sphere): x = (2√2/π) R Δλ cos θ, y = √2 R sin θ, 2θ + sin 2θ = π sin φ (eqs. 31-1 to
+ * 31-3), dθ/dφ = π cos φ/(4 cos² θ); θ solved here to rounding level (proj4's and PROJ's own
+ * iterations stop early near the poles, where s then drifts from 1 by up to 1e-6).
  * Example: for +proj=merc +R=1, ∂y/∂φ at φ = 60° is sec 60° = 2.
  */
 export function analyticJacobian(family: string, p: Proj4Projection): JacobianRad | undefined {
@@ -125,9 +128,44 @@ export function analyticJacobian(family: string, p: Proj4Projection): JacobianRa
         return b * b < 1;
       };
     }
+    case 'moll': {
+      const cx = (2 * Math.SQRT2) / Math.PI;
+      return (lam, phi, out) => {
+        const theta = mollweideTheta(phi);
+        const cosT = Math.cos(theta);
+        const dTheta = (Math.PI * Math.cos(phi)) / (4 * cosT * cosT);
+        const dl = wrap(lam - lon0);
+        out[0] = a * cx * cosT;
+        out[1] = 0;
+        out[2] = -a * cx * dl * Math.sin(theta) * dTheta;
+        out[3] = a * Math.SQRT2 * cosT * dTheta;
+        return cosT > 0;
+      };
+    }
     default:
       return undefined;
   }
+}
+
+/** Auxiliary angle θ of Mollweide, 2θ + sin 2θ = π sin φ, by Newton from a start that is exact to O(t⁵) near the poles. */
+export function mollweideTheta(phi: number): number {
+  const s = Math.abs(Math.sin(phi));
+  const target = Math.PI * s;
+  let theta: number;
+  if (s > 0.9) {
+    // Near the pole, with t = π/2 − θ: π(1 − sin φ) = 2t − sin 2t ≈ (4/3)t³.
+    const oneMinus = (Math.cos(phi) * Math.cos(phi)) / (1 + s);
+    theta = Math.PI / 2 - Math.cbrt(0.75 * Math.PI * oneMinus);
+  } else theta = Math.abs(phi);
+  for (let i = 0; i < 30; i++) {
+    const c = Math.cos(theta);
+    const d = 4 * c * c;
+    if (d < 1e-300) break;
+    const step = (2 * theta + Math.sin(2 * theta) - target) / d;
+    theta -= step;
+    if (Math.abs(step) < 1e-16) break;
+  }
+  return phi < 0 ? -theta : theta;
 }
 
 /** Jacobian of x = ρ sin θ, y = ρ₀ − ρ cos θ with θ = nΔλ (Snyder 1987, eqs. 14-1, 14-2). */
