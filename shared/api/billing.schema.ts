@@ -18,7 +18,7 @@ export const TEST_PAYMENT_METHODS = [
   { id: 'pm_card_chargeDeclined', label: 'Visa ending 0002 — declined straight away' },
 ] as const;
 
-const quantitySchema = z
+export const seatQuantitySchema = z
   .number({ error: 'Enter a number of seats.' })
   .int('Seats come in whole numbers.')
   .min(1, 'A subscription needs at least one seat.')
@@ -30,11 +30,11 @@ export const paymentMethodIdSchema = z
   .regex(/^pm_[A-Za-z0-9_]{3,120}$/, 'Choose a card.');
 
 /** `POST /api/billing/subscription` (admin). */
-export const startSubscriptionSchema = z.object({ quantity: quantitySchema, paymentMethod: paymentMethodIdSchema });
+export const startSubscriptionSchema = z.object({ quantity: seatQuantitySchema, paymentMethod: paymentMethodIdSchema });
 export type StartSubscriptionInput = z.infer<typeof startSubscriptionSchema>;
 
 /** `PATCH /api/billing/seats` (admin). */
-export const changeSeatsSchema = z.object({ quantity: quantitySchema });
+export const changeSeatsSchema = z.object({ quantity: seatQuantitySchema });
 export type ChangeSeatsInput = z.infer<typeof changeSeatsSchema>;
 
 /** `POST /api/billing/payment-method` (admin): replaces the card and retries an unpaid invoice. */
