@@ -17,7 +17,7 @@ export function greatCirclePoints(a: [number, number], b: [number, number], n = 
   const dot = Math.max(-1, Math.min(1, p[0] * q[0] + p[1] * q[1] + p[2] * q[2]));
   const omega = Math.acos(dot);
   if (omega < 1e-12) throw new Error('the two places are the same point');
-  if (Math.PI - omega < 1e-9) throw new Error('the two places are antipodal, so the great circle between them is not unique');
+  if (Math.PI - omega < 1e-7) throw new Error('the two places are antipodal, so the great circle between them is not unique');
   const out: [number, number][] = [];
   for (let i = 0; i <= n; i++) {
     const t = i / n;
