@@ -12,6 +12,7 @@
  *   regionSummary(geojson): RegionSummary                      area, bbox, parts, holes, antimeridian, pole, centre
  *   prepareRegion(geojson): PreparedRegion                     rings on one longitude frame (reuse across calls)
  *   sampleRegion(geojson | prepared, { count, seed }): RegionSamples   equal-area samples + pairs
+ *   createRegionTest(prepared): (lonDeg, latDeg) => boolean    point in region (even–odd)
  * Scorecards, fields, proposals, optimiser
  *   scoreCandidate(resolved, samples, prepared?, { factors? }): CandidateMetrics
  *   computeSampleFields(resolved, samples, factors?): SampleFields   s, ω, scale error per sample (heatmaps)
@@ -33,6 +34,8 @@ export { factorsAt, type PointFactors, type UndefinedFactors } from './factors';
 export { createFactorEvaluator, allocFactorArrays, type FactorArrays, type FactorEvaluator } from './evaluator';
 export { projectPoints } from './project';
 export { prepareRegion, type PreparedRegion } from './region/prepare';
+export { createRegionTest } from './region/contains';
+export { regionAreaM2 } from './region/area';
 export { regionSummary, type RegionSummary } from './region/summary';
 export type { RegionInput } from './region/geojson';
 export { sampleRegion, DEFAULT_SAMPLE_COUNT, MAX_SAMPLE_COUNT, type RegionSamples, type SampleOptions } from './sampling';
