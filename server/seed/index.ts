@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { seedDemoSubscription } from '../billing/demo-seed.js';
 import { seedDemoStudio, type DemoContext } from './demo-studio.js';
 
 export type { DemoContext } from './demo-studio.js';
@@ -11,7 +12,7 @@ export type DemoSeeder = (ctx: DemoContext) => Promise<void>;
  * Features add theirs here (e.g. demo projects, regions and audits): import the seeder and
  * append it to this array.
  */
-export const extraDemoSeeders: DemoSeeder[] = [];
+export const extraDemoSeeders: DemoSeeder[] = [seedDemoSubscription];
 
 /** Seeds the whole demo: the studio, its people, then every extra seeder. */
 export async function seedDemo(ds: DataSource): Promise<DemoContext> {
