@@ -37,6 +37,14 @@ const readBody = (req: http.IncomingMessage) =>
     req.on('error', reject);
   });
 
+/** The secret key from `Bearer <key>` (the SDK) or HTTP Basic with the key as user name (curl -u). */
+function apiKeyOf(header: string | undefined): string {
+  const [scheme, value = ''] = (header ?? '').split(' ');
+  if (scheme === 'Bearer') return value;
+  if (scheme === 'Basic') return Buffer.from(value, 'base64').toString('utf8').split(':')[0];
+  return '';
+}
+
 const send = (res: http.ServerResponse, status: number, body: unknown, headers: Record<string, string> = {}) =>
   res.writeHead(status, { 'content-type': 'application/json', 'request-id': newId('req'), ...headers }).end(JSON.stringify(body));
 
@@ -75,8 +83,7 @@ export async function startFakePay(opts: FakePayOptions): Promise<FakePay> {
           return send(res, 400, { error: (err as Error).message });
         }
       }
-      const auth = req.headers.authorization ?? '';
-      if (!/^Bearer sk_test_\w+$/.test(auth)) {
+      if (!/^sk_test_\w+$/.test(apiKeyOf(req.headers.authorization))) {
         throw new PayError(401, 'authentication_error', 'Invalid API Key provided. This local provider accepts test-mode secret keys (sk_test_…) only.');
       }
       const key = req.headers['idempotency-key'];
