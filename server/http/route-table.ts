@@ -1,4 +1,5 @@
 import { Router, type Request, type RequestHandler, type Response } from 'express';
+import type { ZodType } from 'zod';
 import type { Role } from '../../shared/api/roles.js';
 import { forbidden, unauthorized } from './errors.js';
 
@@ -24,6 +25,12 @@ export interface RouteSpec {
   handler: (req: Request, res: Response) => unknown;
   /** One line for the API index and the docs. */
   summary?: string;
+  /**
+   * Optional: the zod schema of the JSON body / the query the handler parses. Declaring them is
+   * not required for the route to work; the bad-input test generates malformed payloads from them.
+   */
+  body?: ZodType;
+  query?: ZodType;
 }
 
 export const ALL_ROLES: readonly Role[] = ['admin', 'cartographer', 'editor', 'client'];
