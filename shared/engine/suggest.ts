@@ -32,8 +32,8 @@ export function suggestCandidates(region: RegionSummary, purpose: MapPurpose): P
   const world = region.lonSpanDeg > 270 && span > 100;
   const hemispheric = !world && (region.lonSpanDeg > 140 || span > 90);
   const polar = region.containsPole !== null || Math.abs(region.centreLatDeg) > 70;
-  const eastWest = region.eastWestKm > 1.3 * region.northSouthKm;
-  const northSouth = region.northSouthKm > 1.3 * region.eastWestKm;
+  const eastWest = region.eastWestSpreadKm > 1.3 * region.northSouthSpreadKm;
+  const northSouth = region.northSouthSpreadKm > 1.3 * region.eastWestSpreadKm;
   const tropical = Math.abs(region.centreLatDeg) < 20 && Math.max(Math.abs(south), Math.abs(north)) < 30;
   const poleLat = region.containsPole === 'south' || (region.containsPole === null && region.centreLatDeg < 0) ? -90 : 90;
   const e = '+ellps=WGS84';

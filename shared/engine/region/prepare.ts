@@ -27,12 +27,40 @@ export interface PreparedRegion {
   sourceRings: { ring: Position[]; isHole: boolean; pole: 0 | 1 | -1; polygon: number }[];
 }
 
-/** Shortest signed longitude step, in (−180, 180]. */
-const lonStep = (d: number) => d - 360 * Math.round(d / 360);
+/**
+ * Signed longitude step of an edge: the short way round (an edge from 180° to −180° is no step at
+ * all, as in data split at the antimeridian), except that a step of exactly ±180° goes the way it
+ * is written, and so does a jump between ±180° when asWritten is set.
+ */
+const lonStep = (from: number, to: number, asWritten: boolean) => {
+  const d = to - from;
+  if (d >= -180 && d <= 180) return d;
+  if (asWritten && Math.abs(from) === 180 && to === -from) return d;
+  return d - 360 * Math.round(d / 360);
+};
+
+/** The ring with longitudes unwrapped, and its turns around the pole. */
+function unwrap(ring: Position[], asWritten: boolean): { out: Position[]; turns: number } {
+  const out: Position[] = [[ring[0][0], ring[0][1]]];
+  let u = ring[0][0];
+  for (let i = 1; i < ring.length; i++) {
+    u += lonStep(ring[i - 1][0], ring[i][0], asWritten);
+    out.push([u, ring[i][1]]);
+  }
+  return { out, turns: Math.round((u - ring[0][0]) / 360) };
+}
+
+/** Twice the planar (lon/lat) area of a closed ring. */
+function shoelace(ring: Position[]): number {
+  let a = 0;
+  for (let i = 0; i + 1 < ring.length; i++) a += ring[i][0] * ring[i + 1][1] - ring[i + 1][0] * ring[i][1];
+  return a;
+}
 
 /**
  * Reads a region into rings on a common longitude frame. An edge is the straight line in
- * lon/lat between its ends (RFC 7946 §3.1.1) taken the short way round in longitude, so rings
+ * lon/lat between its ends (RFC 7946 §3.1.1) taken the short way round in longitude (a step of
+ * exactly 180° goes the way it is written), so rings
  * that cross the antimeridian unsplit, or split into parts at ±180°, come out whole. A ring whose
  * longitude turns through 360° encircles a pole; it is closed through the pole on the side of the
  * smaller area, whatever its winding. Inside-ness is even–odd over all rings, so a wrongly wound
@@ -49,13 +77,9 @@ export function prepareRegion(input: RegionInput): PreparedRegion {
       const n = ring.length - 1;
       vertexCount += n;
       if (r > 0) holeCount++;
-      const out: Position[] = [[ring[0][0], ring[0][1]]];
-      let u = ring[0][0];
-      for (let i = 1; i <= n; i++) {
-        u += lonStep(ring[i][0] - ring[i - 1][0]);
-        out.push([u, ring[i][1]]);
-      }
-      const turns = Math.round((u - ring[0][0]) / 360);
+      let { out, turns } = unwrap(ring, false);
+      // Read the short way, a box written from −180° to 180° collapses to a line: read it as written.
+      if (turns === 0 && Math.abs(shoelace(out)) < 1e-12) ({ out, turns } = unwrap(ring, true));
       if (Math.abs(turns) > 1) throw new Error(`a ring winds ${Math.abs(turns)} times around a pole`);
       if (turns === -1) out.reverse();
       const pole = turns === 0 ? 0 : chooseCap(out);

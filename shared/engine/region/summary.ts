@@ -22,6 +22,13 @@ export interface RegionSummary {
   latSpanDeg: number;
   eastWestKm: number;
   northSouthKm: number;
+  /**
+   * Shape from the area-weighted spread of the samples about the centre (√12 × standard deviation,
+   * the extent of a uniform strip of the same spread), east–west and north–south, km. Unlike the
+   * extent, outlying islands barely move it.
+   */
+  eastWestSpreadKm: number;
+  northSouthSpreadKm: number;
 }
 
 const wrap = (x: number) => (x > 180 ? x - 360 : x < -180 ? x + 360 : x);
@@ -44,6 +51,18 @@ export function regionSummary(input: RegionInput | PreparedRegion): RegionSummar
   }
   const centreLat = Math.atan2(z, Math.hypot(x, y)) * RAD_TO_DEG;
   const centreLon = Math.atan2(y, x) * RAD_TO_DEG;
+  let se = 0;
+  let sn = 0;
+  const cosC = Math.cos(centreLat * DEG_TO_RAD);
+  for (let i = 0; i < samples.count; i++) {
+    let dl = samples.lonDeg[i] - centreLon;
+    dl -= 360 * Math.round(dl / 360);
+    const e = dl * cosC;
+    const n = samples.latDeg[i] - centreLat;
+    se += e * e;
+    sn += n * n;
+  }
+  const spread = (m2: number) => Math.sqrt((12 * m2) / samples.count) * 111.32;
   const full = region.widthDeg >= 360;
   const bbox: [number, number, number, number] = full
     ? [-180, region.southDeg, 180, region.northDeg]
@@ -64,5 +83,7 @@ export function regionSummary(input: RegionInput | PreparedRegion): RegionSummar
     latSpanDeg: latSpan,
     eastWestKm: region.widthDeg * kmPerDeg * Math.cos(centreLat * DEG_TO_RAD),
     northSouthKm: latSpan * kmPerDeg,
+    eastWestSpreadKm: spread(se),
+    northSouthSpreadKm: spread(sn),
   };
 }
