@@ -1,31 +1,21 @@
 /**
- * Densified great-circle and rhumb-line routes between two places, in lon/lat degrees.
- * Kept apart from drawing so tests can check them against their defining properties.
+ * Rhumb lines between two places on an ellipsoid, in lon/lat degrees. The engine's own
+ * rhumbPoints works on the sphere; on an ellipsoidal Mercator only the ellipsoid's isometric
+ * latitude makes the loxodrome exactly straight, so routes are drawn with this one.
  */
 
 const DEG = Math.PI / 180;
 
 /**
- * n + 1 points along the great circle from a to b on the sphere through the geodetic
- * coordinates (spherical linear interpolation of the unit vectors) — the line a gnomonic map,
- * itself computed on a sphere, draws straight. Throws for coincident or antipodal places,
- * between which the great circle is not defined or not unique.
+ * Refuses a pair of places between which no route can be drawn: the same point, or antipodes
+ * (every great circle through them is equally short, so "the" great circle is not defined).
  */
-export function greatCirclePoints(a: [number, number], b: [number, number], n = 128): [number, number][] {
+export function checkRouteEnds(a: [number, number], b: [number, number]): void {
   const v = ([lon, lat]: [number, number]) => [Math.cos(lat * DEG) * Math.cos(lon * DEG), Math.cos(lat * DEG) * Math.sin(lon * DEG), Math.sin(lat * DEG)];
   const p = v(a), q = v(b);
-  const dot = Math.max(-1, Math.min(1, p[0] * q[0] + p[1] * q[1] + p[2] * q[2]));
-  const omega = Math.acos(dot);
-  if (omega < 1e-12) throw new Error('the two places are the same point');
+  const omega = Math.acos(Math.max(-1, Math.min(1, p[0] * q[0] + p[1] * q[1] + p[2] * q[2])));
+  if (omega < 1e-9) throw new Error('the two places are the same point');
   if (Math.PI - omega < 1e-7) throw new Error('the two places are antipodal, so the great circle between them is not unique');
-  const out: [number, number][] = [];
-  for (let i = 0; i <= n; i++) {
-    const t = i / n;
-    const wa = Math.sin((1 - t) * omega) / Math.sin(omega), wb = Math.sin(t * omega) / Math.sin(omega);
-    const x = wa * p[0] + wb * q[0], y = wa * p[1] + wb * q[1], z = wa * p[2] + wb * q[2];
-    out.push([Math.atan2(y, x) / DEG, Math.atan2(z, Math.hypot(x, y)) / DEG]);
-  }
-  return unwrapLongitudes(out);
 }
 
 /**
@@ -68,15 +58,4 @@ export function rhumbPoints(a: [number, number], b: [number, number], es: number
     out.push([a[0] + t * dLon, lat]);
   }
   return out;
-}
-
-/** Makes consecutive longitudes differ by less than 180° (so a route across ±180° stays in one piece). */
-function unwrapLongitudes(points: [number, number][]): [number, number][] {
-  for (let i = 1; i < points.length; i++) {
-    let lon = points[i][0];
-    while (lon - points[i - 1][0] > 180) lon -= 360;
-    while (lon - points[i - 1][0] < -180) lon += 360;
-    points[i][0] = lon;
-  }
-  return points;
 }

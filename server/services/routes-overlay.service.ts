@@ -4,7 +4,8 @@ import { badRequest } from '../http/errors.js';
 import { frameFor, projectRings, ringsOf, ringsToPixels, toUnit, type Frame } from '../heatmaps/frame.js';
 import { graticuleFor } from '../heatmaps/graticule.js';
 import { rasterMask } from '../heatmaps/raster-mask.js';
-import { greatCirclePoints, rhumbPoints } from '../heatmaps/route-lines.js';
+import { geodesicPoints } from '../../shared/engine/routes.js';
+import { checkRouteEnds, rhumbPoints } from '../heatmaps/route-lines.js';
 import { majorAxisAngleRad } from '../heatmaps/tissot-ellipse.js';
 import type { CandidateContext } from './heatmaps.service.js';
 
@@ -16,6 +17,19 @@ const MIN_ELLIPSES = 20;
 const ELLIPSE_FILL = 0.38;
 const WORST_PER_KIND = 3;
 const geod = geographiclib.Geodesic.WGS84;
+/** Segments each route is drawn with. */
+const ROUTE_STEPS = 128;
+
+/** Consecutive longitudes within 180° of each other, so a route across ±180° stays one line. */
+function unwrap(points: [number, number][]): [number, number][] {
+  for (let i = 1; i < points.length; i++) {
+    let lon = points[i][0];
+    while (lon - points[i - 1][0] > 180) lon -= 360;
+    while (lon - points[i - 1][0] < -180) lon += 360;
+    points[i][0] = lon;
+  }
+  return points;
+}
 
 const r2 = (v: number) => Math.round(v * 100) / 100;
 const toView = (frame: Frame, x: number, y: number): [number, number] => {
@@ -182,13 +196,16 @@ function drawLine(ctx: CandidateContext, frame: Frame, kind: 'great-circle' | 'r
 export function routeBetween(ctx: CandidateContext, from: [number, number], to: [number, number]): RouteView {
   const { frame } = regionFrame(ctx);
   let gc: [number, number][], rh: [number, number][];
+  const geodesicM = geod.Inverse(from[1], from[0], to[1], to[0]).s12 ?? NaN;
   try {
-    gc = greatCirclePoints(from, to);
-    rh = rhumbPoints(from, to, ctx.resolved.ellipsoid.es);
+    checkRouteEnds(from, to);
+    // The shortest path on the surface the candidate itself uses (a great circle on a sphere),
+    // so a gnomonic candidate draws it straight; its ground length is the WGS84 geodesic.
+    gc = unwrap(geodesicPoints(from, to, geodesicM / 1000 / ROUTE_STEPS, ctx.resolved.factorEllipsoid));
+    rh = rhumbPoints(from, to, ctx.resolved.ellipsoid.es, ROUTE_STEPS);
   } catch (err) {
     throw badRequest(`No route can be drawn: ${(err as Error).message}.`);
   }
-  const geodesicM = geod.Inverse(from[1], from[0], to[1], to[0]).s12 ?? NaN;
   return {
     candidateId: ctx.candidate.id,
     from,

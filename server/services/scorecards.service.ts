@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { ScorecardView } from '../../shared/api/audits.schema.js';
-import { SCORECARD_COLUMNS, metricValue, rankForPurpose } from '../../shared/api/audit-metrics.js';
+import { SCORECARD_COLUMNS, displayValue, rankForPurpose } from '../../shared/api/audit-metrics.js';
 import { Scorecard, type Audit } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict } from '../http/errors.js';
@@ -60,8 +60,9 @@ const csvField = (v: unknown) => {
 };
 
 /**
- * `scorecards.csv`: one row per candidate, the main metrics as columns with their units in the
- * header, and the candidate's rank for the project's purpose (1 = best).
+ * `scorecards.csv`: one row per candidate, the main metrics as columns in the units the table
+ * shows (named in the header), and the candidate's rank for the project's purpose (1 = best).
+ * scorecards.json carries every metric exactly as the engine reported it.
  */
 export async function scorecardsCsv(db: DataSource, actor: Actor, auditId: number): Promise<string> {
   const { project, views } = await doneScorecards(db, actor, auditId);
@@ -81,7 +82,7 @@ export async function scorecardsCsv(db: DataSource, actor: Actor, auditId: numbe
     v.family,
     v.resolved,
     rankOf.get(v.candidateId) ?? '',
-    ...SCORECARD_COLUMNS.map((c) => metricValue(v.metrics, c.key) ?? ''),
+    ...SCORECARD_COLUMNS.map((c) => displayValue(c, v.metrics) ?? ''),
   ]);
   return [header, ...rows].map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
 }

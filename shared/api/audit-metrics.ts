@@ -10,51 +10,59 @@ export interface MetricColumn {
   better: 'lower' | 'higher';
   /** Shown on hover and focus of the column header. */
   explanation: string;
-  /** Digits after the decimal point in the table. */
+  /** Significant digits in the table. */
   digits: number;
-  /** Shown as a percentage of the region (the stored value is a 0–1 share). */
-  share?: boolean;
+  /**
+   * How the stored value is shown: as is; as a percentage of the region (a 0–1 share); or as a
+   * percentage error from a logarithmic one (100·(eˣ − 1), the engine keeps |ln| ratios).
+   */
+  display: 'plain' | 'share' | 'ln-as-pct';
 }
 
 export const SCORECARD_COLUMNS: readonly MetricColumn[] = [
   {
-    key: 'arealScale.maxMinRatio',
+    key: 'arealScale.ratio',
     label: 'Area spread',
     units: 'max/min',
     better: 'lower',
-    digits: 4,
+    digits: 5,
+    display: 'plain',
     explanation: 'How many times larger the most enlarged place in the region is drawn than the most shrunk one, area for area. 1 means every area is shown in true proportion.',
   },
   {
-    key: 'omegaDeg.mean',
+    key: 'angularDeformationDeg.mean',
     label: 'Mean angle bend',
     units: '°',
     better: 'lower',
     digits: 3,
+    display: 'plain',
     explanation: 'The average, over the region, of the largest amount an angle on the ground is bent on the map (ω). 0° means shapes of small things are kept.',
   },
   {
-    key: 'omegaDeg.max',
+    key: 'angularDeformationDeg.max',
     label: 'Worst angle bend',
     units: '°',
     better: 'lower',
     digits: 3,
+    display: 'plain',
     explanation: 'The largest bending of angles (ω) anywhere in the region.',
   },
   {
-    key: 'scaleError.meanPct',
+    key: 'scaleError.mean',
     label: 'Mean scale error',
     units: '%',
     better: 'lower',
     digits: 3,
+    display: 'ln-as-pct',
     explanation: 'After the whole map is rescaled by the one factor that suits the region best, how far the scale in the worst direction is from true, on average.',
   },
   {
-    key: 'scaleError.maxPct',
+    key: 'scaleError.max',
     label: 'Worst scale error',
     units: '%',
     better: 'lower',
     digits: 3,
+    display: 'ln-as-pct',
     explanation: 'The same scale error at the worst place in the region.',
   },
   {
@@ -62,48 +70,60 @@ export const SCORECARD_COLUMNS: readonly MetricColumn[] = [
     label: 'Overall distortion',
     units: 'Airy–Kavrayskiy',
     better: 'lower',
-    digits: 5,
+    digits: 4,
+    display: 'plain',
     explanation: 'One number for all distortion together (the Airy–Kavrayskiy measure): the root mean square of the logarithmic scale errors in every direction. 0 would be a perfect map.',
   },
   {
-    key: 'distanceError.meanPct',
+    key: 'distanceError.mean',
     label: 'Mean distance error',
     units: '%',
     better: 'lower',
     digits: 3,
+    display: 'ln-as-pct',
     explanation: 'For many random pairs of places in the region, how far the straight-line distance measured on the map (after the best rescale) is from the true distance on the Earth, on average.',
   },
   {
-    key: 'distanceError.p95Pct',
+    key: 'distanceError.p95',
     label: 'Distance error (95th percentile)',
     units: '%',
     better: 'lower',
     digits: 3,
+    display: 'ln-as-pct',
     explanation: 'The distance error that 95 % of the place pairs stay within.',
   },
   {
-    key: 'withinTolerance.omega1Deg',
+    key: 'withinTolerance.angular1Deg',
     label: 'Area with angles within 1°',
     units: '% of region',
     better: 'higher',
-    digits: 1,
-    share: true,
+    digits: 3,
+    display: 'share',
     explanation: 'The share of the region where no angle is bent by more than 1°.',
   },
 ];
 
 /** Which metric decides the ranking for each map purpose (ties go to the overall distortion). */
 export const PURPOSE_METRIC: Readonly<Record<string, string>> = {
-  'equal-area': 'arealScale.maxMinRatio',
-  conformal: 'omegaDeg.mean',
+  'equal-area': 'arealScale.ratio',
+  conformal: 'angularDeformationDeg.mean',
   reference: 'airyKavrayskiy',
-  equidistant: 'distanceError.meanPct',
+  equidistant: 'distanceError.mean',
 };
 
 export function metricValue(metrics: Record<string, unknown>, key: string): number | null {
   let v: unknown = metrics;
   for (const part of key.split('.')) v = v && typeof v === 'object' ? (v as Record<string, unknown>)[part] : undefined;
   return typeof v === 'number' && Number.isFinite(v) ? v : null;
+}
+
+/** A metric as the table shows it (see MetricColumn.display), or null when the engine reported none. */
+export function displayValue(column: MetricColumn, metrics: Record<string, unknown>): number | null {
+  const v = metricValue(metrics, column.key);
+  if (v === null) return null;
+  if (column.display === 'share') return v * 100;
+  if (column.display === 'ln-as-pct') return (Math.exp(v) - 1) * 100;
+  return v;
 }
 
 export const columnFor = (key: string) => SCORECARD_COLUMNS.find((c) => c.key === key)!;

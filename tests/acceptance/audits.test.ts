@@ -1,38 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resolveDefinition } from '../../shared/engine/definition.js';
-import { allocFactorArrays, createFactorEvaluator } from '../../shared/engine/evaluator.js';
+import { prepareRegion } from '../../shared/engine/region/prepare.js';
+import { sampleRegion } from '../../shared/engine/sampling.js';
+import { scoreCandidate } from '../../shared/engine/scorecard.js';
 import { Audit, ProjectAccess, Scorecard } from '../../server/entities/index.js';
-import { geodesicPairs, scoreInterim } from '../../server/jobs/interim-scoring.js';
-import { sampleRegionInterim } from '../../server/jobs/interim-sampling.js';
 import { startAuditJobs, stopAuditJobs } from '../../server/jobs/runner.js';
 import { createAuditProject, waitForAudit, type AuditProject } from '../support/audit-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { createTestApp } from '../support/test-app.js';
 
-const DEG = Math.PI / 180;
 const DEFS = [
   '+proj=tmerc +lat_0=0 +lon_0=-71 +k_0=0.9996 +x_0=500000 +y_0=10000000 +ellps=WGS84',
   '+proj=laea +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
   '+proj=merc +lon_0=-71 +ellps=WGS84',
 ];
 
-/** The same audit computed here in one thread from the engine's parts, without queue or pool. */
+/** The same audit computed here in one thread by the engine's own scoreCandidate, without queue or pool. */
 function directScorecards(p: AuditProject, samples: number, seed: number) {
-  const rings = p.geometry.type === 'Polygon' ? p.geometry.coordinates : p.geometry.coordinates.flat();
-  const { lonDeg, latDeg } = sampleRegionInterim(rings, samples, seed);
-  const pairs = geodesicPairs(lonDeg, latDeg, 2000, seed);
-  return DEFS.map((def) => {
-    const ev = createFactorEvaluator(resolveDefinition(def));
-    const f = allocFactorArrays(lonDeg.length);
-    ev.factorsBatchDeg(lonDeg, latDeg, f);
-    const x = new Float64Array(lonDeg.length), y = new Float64Array(lonDeg.length), xy = new Float64Array(2);
-    for (let i = 0; i < lonDeg.length; i++) {
-      ev.forward(lonDeg[i] * DEG, latDeg[i] * DEG, xy);
-      x[i] = xy[0];
-      y[i] = xy[1];
-    }
-    return JSON.parse(JSON.stringify(scoreInterim(f, { x, y }, pairs)));
-  });
+  const region = prepareRegion(p.geometry);
+  const points = sampleRegion(region, { count: samples, seed });
+  return DEFS.map((def) => JSON.parse(JSON.stringify(scoreCandidate(resolveDefinition(def), points, region))));
 }
 
 describe('audits as background jobs', () => {
@@ -66,7 +53,7 @@ describe('audits as background jobs', () => {
     const direct = directScorecards(p, 5000, 7);
     audit.scorecards.forEach((card: { metrics: unknown }, i: number) => expect(card.metrics).toEqual(direct[i]));
     // Transverse Mercator is conformal: ω ≈ 0 (Snyder 1987, ch. 8), so it ranks first for a conformal map.
-    expect((audit.scorecards[0].metrics as { omegaDeg: { max: number } }).omegaDeg.max).toBeLessThan(1e-6);
+    expect((audit.scorecards[0].metrics as { angularDeformationDeg: { max: number } }).angularDeformationDeg.max).toBeLessThan(1e-6);
     doneAuditId = audit.id;
 
     const list = await s.editor.get(`/api/projects/${p.projectId}/audits`);
@@ -119,9 +106,9 @@ describe('audits as background jobs', () => {
   it('exports scorecards as CSV and JSON with the purpose’s ranking', async () => {
     const json = await s.editor.get(`/api/audits/${doneAuditId}/scorecards.json`);
     expect(json.status).toBe(200);
-    expect(json.body.ranking.metric).toBe('omegaDeg.mean');
+    expect(json.body.ranking.metric).toBe('angularDeformationDeg.mean');
     expect(json.body.scorecards).toHaveLength(DEFS.length);
-    const omega = json.body.scorecards.map((c: { candidateId: number; metrics: { omegaDeg: { mean: number } } }) => [c.candidateId, c.metrics.omegaDeg.mean]);
+    const omega = json.body.scorecards.map((c: { candidateId: number; metrics: { angularDeformationDeg: { mean: number } } }) => [c.candidateId, c.metrics.angularDeformationDeg.mean]);
     const expectedOrder = [...omega].sort((a, b) => a[1] - b[1]).map((x) => x[0]);
     expect(json.body.ranking.order).toEqual(expectedOrder);
 
@@ -130,12 +117,14 @@ describe('audits as background jobs', () => {
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const lines = csv.text.trim().split('\r\n');
     expect(lines).toHaveLength(DEFS.length + 1);
-    expect(lines[0]).toContain('omegaDeg.mean (°)');
+    expect(lines[0]).toContain('angularDeformationDeg.mean (°)');
     expect(lines[0]).toContain('rank_for_conformal');
     const header = lines[0].split(',');
-    const col = header.indexOf('omegaDeg.mean (°)');
     const row = lines[1].split(',');
-    expect(Number(row[col])).toBeCloseTo(json.body.scorecards[0].metrics.omegaDeg.mean, 12);
+    expect(Number(row[header.indexOf('angularDeformationDeg.mean (°)')])).toBeCloseTo(json.body.scorecards[0].metrics.angularDeformationDeg.mean, 12);
+    // Logarithmic errors are shown as percentages: 100·(e^x − 1).
+    const lnMean = json.body.scorecards[0].metrics.scaleError.mean;
+    expect(Number(row[header.indexOf('scaleError.mean (%)')])).toBeCloseTo(100 * (Math.exp(lnMean) - 1), 10);
   });
 
   it('lets cartographers and admins start audits, everyone in the studio read them, shared clients read only', async () => {
