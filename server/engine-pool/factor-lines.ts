@@ -24,7 +24,7 @@ const isSpace = (c: number) => c === 32 || c === 9 || c === 13 || c === 11 || c 
 /**
  * Returns a function that turns "lon lat" lines (degrees; a third field, such as a height, and
  * anything after it is ignored; blank lines and lines starting with # are skipped) into factor lines.
- * Example: createFactorLineProcessor(resolveDefinition('+proj=merc +R=1'))('0 60\n').out holds "2\t2\t4\t0\t2\t2\n".
+ * Example: createFactorLineProcessor(resolveDefinition('+proj=merc +R=1'))('10 0\n').out holds "1\t1\t1\t0\t1\t1\n".
  */
 export function createFactorLineProcessor(resolved: ResolvedDefinition): (text: string) => FactorLinesResult {
   const evaluator = createFactorEvaluator(resolved);
