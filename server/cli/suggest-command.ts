@@ -17,7 +17,7 @@ export async function suggestCommand(argv: string[], io: CliIo): Promise<number>
     io.stdout.write(`${JSON.stringify({ purpose, region: summary, candidates: proposals }, null, 2)}\n`);
     return 0;
   }
-  io.stdout.write(`${proposals.length} candidates for a ${purpose} map of a region of ${Math.round(summary.areaKm2)} km² centred on ${summary.centreLatDeg.toFixed(2)}°, ${summary.centreLonDeg.toFixed(2)}°:\n\n`);
+  io.stdout.write(`${proposals.length} candidates for ${/^[aeiou]/.test(purpose) ? "an" : "a"} ${purpose} map of a region of ${Math.round(summary.areaKm2)} km² centred on ${summary.centreLatDeg.toFixed(2)}°, ${summary.centreLonDeg.toFixed(2)}°:\n\n`);
   proposals.forEach((p, i) => io.stdout.write(`${i + 1}. ${p.label}\n   ${p.definition}\n   ${p.reason}\n\n`));
   return 0;
 }
