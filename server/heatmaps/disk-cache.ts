@@ -11,6 +11,10 @@ import path from 'node:path';
 export class HeatmapDiskCache {
   private readonly inFlight = new Map<string, Promise<Buffer>>();
 
+  /** Told when a rendered picture could not be cached; by default a process warning (stderr, the process log). */
+  onWriteError: (err: unknown) => void = (err) =>
+    process.emitWarning(`A heatmap could not be cached: ${(err as Error)?.message ?? err}`, 'HeatmapCacheWarning');
+
   constructor(private readonly root: string) {}
 
   pathFor(auditId: number, name: string): string {
@@ -28,14 +32,28 @@ export class HeatmapDiskCache {
     if (!pending) {
       pending = (async () => {
         const png = await render();
-        await fs.mkdir(path.dirname(file), { recursive: true });
-        const tmp = `${file}.${randomBytes(4).toString('hex')}.tmp`;
-        await fs.writeFile(tmp, png);
-        await fs.rename(tmp, file);
+        await this.store(file, png);
         return png;
       })().finally(() => this.inFlight.delete(file));
       this.inFlight.set(file, pending);
     }
     return { png: await pending, cached: false };
+  }
+
+  /**
+   * Writes through a temporary file and a rename. A failed write (disk full, directory not
+   * creatable) removes its temporary file and is not the caller's failure: the picture is still
+   * served, only not cached, and the next request tries to cache it again.
+   */
+  private async store(file: string, png: Buffer): Promise<void> {
+    const tmp = `${file}.${randomBytes(4).toString('hex')}.tmp`;
+    try {
+      await fs.mkdir(path.dirname(file), { recursive: true });
+      await fs.writeFile(tmp, png);
+      await fs.rename(tmp, file);
+    } catch (err) {
+      await fs.rm(tmp, { force: true }).catch(() => {});
+      this.onWriteError(err);
+    }
   }
 }
