@@ -1,4 +1,4 @@
-import { useMemo, useState, type ReactNode } from 'react';
+import { useId, useMemo, useState, type ReactNode } from 'react';
 import { cn } from '@/lib/cn.js';
 
 export type SortDirection = 'ascending' | 'descending';
@@ -14,6 +14,8 @@ export interface Column<Row> {
   /** Row header cell (`<th scope="row">`), for the column that names the row. */
   rowHeader?: boolean;
   className?: string;
+  /** Plain-words explanation of the column, shown as a tooltip on hover and keyboard focus of its header. */
+  description?: ReactNode;
 }
 
 interface DataTableProps<Row> {
@@ -26,6 +28,8 @@ interface DataTableProps<Row> {
   initialSort?: { key: string; direction: SortDirection };
   empty?: ReactNode;
   className?: string;
+  /** Extra classes for a row (e.g. to highlight one). */
+  rowClassName?: (row: Row) => string | undefined;
 }
 
 const collator = new Intl.Collator(undefined, { numeric: true, sensitivity: 'base' });
@@ -61,8 +65,9 @@ export function sortRows<Row>(rows: readonly Row[], value: (row: Row) => SortVal
  * A table whose sortable column headers are buttons (reachable by Tab, pressed with Enter or
  * Space) and whose header cells carry aria-sort, so the current order is announced.
  */
-export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, initialSort, empty, className }: DataTableProps<Row>) {
+export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, initialSort, empty, className, rowClassName }: DataTableProps<Row>) {
   const [sort, setSort] = useState(initialSort);
+  const tipBase = useId();
   const sorted = useMemo(() => {
     const col = sort && columns.find((c) => c.key === sort.key);
     return col?.sortValue && sort ? sortRows(rows, col.sortValue, sort.direction) : rows;
@@ -81,16 +86,18 @@ export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, 
           <tr className="border-b border-rule bg-paper/60">
             {columns.map((col) => {
               const active = sort?.key === col.key;
+              const tipId = col.description ? `${tipBase}-${col.key}` : undefined;
               return (
                 <th
                   key={col.key}
                   scope="col"
                   aria-sort={col.sortValue ? (active ? sort.direction : 'none') : undefined}
-                  className={cn('px-4 py-2 font-medium whitespace-nowrap text-ink-600', col.align === 'right' && 'text-right', col.className)}
+                  className={cn('px-4 py-2 font-medium whitespace-nowrap text-ink-600', col.align === 'right' && 'text-right', tipId && 'group relative', col.className)}
                 >
                   {col.sortValue ? (
                     <button
                       type="button"
+                      aria-describedby={tipId}
                       onClick={() => toggle(col.key)}
                       className={cn(
                         '-mx-1.5 inline-flex items-center gap-1 rounded px-1.5 py-0.5 hover:bg-mulberry-50 hover:text-ink-950',
@@ -101,8 +108,25 @@ export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, 
                       {col.header}
                       <SortIcon direction={active ? sort.direction : undefined} />
                     </button>
+                  ) : tipId ? (
+                    <span tabIndex={0} aria-describedby={tipId} className="rounded">
+                      {col.header}
+                    </span>
                   ) : (
                     col.header
+                  )}
+                  {tipId && (
+                    <span
+                      role="tooltip"
+                      id={tipId}
+                      className={cn(
+                        'invisible absolute top-full z-20 mt-1 w-64 rounded-md bg-ink-950 px-3 py-2 text-left text-xs font-normal whitespace-normal text-white shadow-lg',
+                        'group-hover:visible group-focus-within:visible',
+                        col.align === 'right' ? 'right-2' : 'left-2',
+                      )}
+                    >
+                      {col.description}
+                    </span>
                   )}
                 </th>
               );
@@ -118,7 +142,7 @@ export function DataTable<Row>({ rows, columns, rowKey, caption, captionHidden, 
             </tr>
           ) : (
             sorted.map((row) => (
-              <tr key={rowKey(row)} className="border-b border-rule last:border-b-0 hover:bg-paper/50">
+              <tr key={rowKey(row)} className={cn('border-b border-rule last:border-b-0 hover:bg-paper/50', rowClassName?.(row))}>
                 {columns.map((col) => {
                   const Cell = col.rowHeader ? 'th' : 'td';
                   return (
