@@ -1,5 +1,6 @@
 import { HEATMAP_FIELDS } from '../../shared/api/audits.schema.js';
-import { SCORECARD_COLUMNS, metricValue } from '../../shared/api/audit-metrics.js';
+import { SCORECARD_COLUMNS } from '../../shared/api/audit-metrics.js';
+import { metricText } from '../../shared/review/metric-display.js';
 import { PURPOSE_LABELS, SCALE_BAND_LABELS, type MapPurposeName, type ScaleBandName } from '../../shared/api/projects.schema.js';
 import { resolveDefinition } from '../../shared/engine/definition.js';
 import { lookupEpsg } from '../../shared/engine/epsg.js';
@@ -24,13 +25,6 @@ export function wktOf(definition: string, label: string): string | null {
   } catch {
     return null;
   }
-}
-
-function formatMetric(metrics: Record<string, unknown>, col: (typeof SCORECARD_COLUMNS)[number]): string {
-  const v = metricValue(metrics, col.key);
-  if (v === null) return '–';
-  const shown = col.share ? v * 100 : v;
-  return `${shown.toFixed(col.digits)} ${col.units}`.trim();
 }
 
 /** The heatmaps of the approved candidate, drawn by the audit's own heatmap service; left out when the audit kept no sample fields. */
@@ -73,7 +67,7 @@ export async function sheetDataFor(deps: AppDeps, actor: Actor, signOff: SignOff
     definitionEntered: r.candidate.definition,
     projString: r.candidate.resolved,
     wkt: wktOf(r.candidate.definition, r.candidate.label),
-    metrics: SCORECARD_COLUMNS.map((col) => ({ label: col.label, value: formatMetric(metrics, col) })),
+    metrics: SCORECARD_COLUMNS.map((col) => ({ label: col.label, value: metricText(col, metrics) })),
     heatmaps: await heatmapsFor(deps, actor, r.audit.id, r.candidate.id),
     recommendation: round?.recommendation ?? '',
     recordHash: signOff.recordHash,

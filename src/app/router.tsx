@@ -13,6 +13,8 @@ import { signUpPage } from './routes/auth/sign-up-page.js';
 import { NotFoundPage } from './routes/not-found-page.js';
 import { projectsPage } from './routes/projects/projects-page.js';
 import { RouteError } from './routes/route-error.js';
+import { reviewPage } from './routes/review/review-page.js';
+import { reviewRequestsPage } from './routes/review/review-requests-page.js';
 import { billingPage } from './routes/studio/billing-page.js';
 import { peoplePage } from './routes/studio/people-page.js';
 
@@ -20,7 +22,7 @@ import { peoplePage } from './routes/studio/people-page.js';
 const PUBLIC_PAGES: readonly PublicPage[] = [signInPage, signUpPage, acceptInvitePage, resetPasswordPage];
 
 /** Pages inside the signed-in frame; each may restrict itself to roles. */
-const MEMBER_PAGES: readonly MemberPage[] = [projectsPage, peoplePage, billingPage];
+const MEMBER_PAGES: readonly MemberPage[] = [projectsPage, peoplePage, billingPage, reviewRequestsPage, reviewPage];
 
 /** The signed-in member, or a redirect to sign-in that comes back here afterwards. */
 async function requireMember(queryClient: QueryClient, request: Request): Promise<MemberSession> {

@@ -10,6 +10,7 @@ export interface NavItem {
 /** The main navigation. The server checks the same roles on every API route; hiding is a courtesy. */
 export const NAV_ITEMS: readonly NavItem[] = [
   { to: '/projects', label: 'Projects' },
+  { to: '/review', label: 'Reviews', roles: ['client'] },
   { to: '/studio/people', label: 'People', roles: ['admin'] },
   { to: '/studio/billing', label: 'Billing', roles: ['admin'] },
 ];

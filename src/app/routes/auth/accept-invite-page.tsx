@@ -6,6 +6,7 @@ import { AcceptInviteForm } from '@/features/auth/components/accept-invite-form.
 import { AuthCard } from '@/features/auth/components/auth-card.js';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/role-labels.js';
 import type { PublicPage } from '../../route-types.js';
+import { safeNext } from '../../safe-next.js';
 import { LinkProblem } from './link-problem.js';
 
 function AcceptInvitePage() {
@@ -41,7 +42,7 @@ function AcceptInvitePage() {
         )
       }
     >
-      <AcceptInviteForm token={token} invitation={inv} onAccepted={() => navigate('/projects', { replace: true })} />
+      <AcceptInviteForm token={token} invitation={inv} onAccepted={() => navigate(safeNext(params.get('next')), { replace: true })} />
     </AuthCard>
   );
 }

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { roundSchema, type RequestSignOffInput } from '@shared/api/review.schema.js';
+import { apiRequest } from '@/lib/api-client.js';
+import { activityQueryOptions } from './get-activity.js';
+import { roundsQueryOptions } from './get-rounds.js';
+
+/** `POST /api/projects/:projectId/rounds` (editor, admin): sends the shortlist and e-mails the reviewers. */
+export const requestSignOff = (projectId: number, input: RequestSignOffInput) =>
+  apiRequest(`/projects/${projectId}/rounds`, { method: 'POST', body: input, schema: roundSchema });
+
+export function useRequestSignOff(projectId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: RequestSignOffInput) => requestSignOff(projectId, input),
+    onSuccess: async () => {
+      await queryClient.invalidateQueries({ queryKey: roundsQueryOptions(projectId).queryKey });
+      await queryClient.invalidateQueries({ queryKey: activityQueryOptions(projectId).queryKey });
+    },
+  });
+}
