@@ -45,8 +45,8 @@ export async function auditCommand(argv: string[], io: CliIo): Promise<number> {
 export async function runAudit(geojson: Parameters<typeof prepareRegion>[0], resolved: ResolvedDefinition[], opts: { count: number; seed: number; threads: number; pool?: FactorPool }): Promise<AuditReport> {
   const t0 = performance.now();
   const region = prepareRegion(geojson);
-  const summary = regionSummary(region);
   const samples = sampleRegion(region, { count: opts.count, seed: opts.seed });
+  const summary = regionSummary(region, { samples });
   const t1 = performance.now();
   let factors: (FactorArrays | undefined)[] = resolved.map(() => undefined);
   const usePool = opts.pool ?? (opts.threads > 1 && opts.count * resolved.length >= POOL_THRESHOLD ? await FactorPool.start(opts.threads) : undefined);

@@ -1,6 +1,5 @@
 import { DEG_TO_RAD, RAD_TO_DEG } from '../constants';
-import { sampleRegion } from '../sampling';
-import { regionAreaM2 } from './area';
+import { sampleRegion, type RegionSamples } from '../sampling';
 import type { RegionInput } from './geojson';
 import { prepareRegion, type PreparedRegion } from './prepare';
 
@@ -35,12 +34,13 @@ const wrap = (x: number) => (x > 180 ? x - 360 : x < -180 ? x + 360 : x);
 
 /**
  * What the engine sees in a region: area (GeographicLib, WGS84), extent, parts, antimeridian and
- * pole, and its area-weighted centre (from 2 000 equal-area samples, seed 1: deterministic).
+ * pole, and its area-weighted centre and spread — from the samples given, or from 2 000 equal-area
+ * samples with seed 1 (deterministic).
  * Example: regionSummary(fiji).crossesAntimeridian === true.
  */
-export function regionSummary(input: RegionInput | PreparedRegion): RegionSummary {
+export function regionSummary(input: RegionInput | PreparedRegion, options: { samples?: RegionSamples } = {}): RegionSummary {
   const region = 'rings' in input ? input : prepareRegion(input);
-  const samples = sampleRegion(region, { count: 2000, seed: 1, pairs: 0 });
+  const samples = options.samples ?? sampleRegion(region, { count: 2000, seed: 1, pairs: 0 });
   let x = 0, y = 0, z = 0;
   for (let i = 0; i < samples.count; i++) {
     const lon = samples.lonDeg[i] * DEG_TO_RAD;
@@ -70,7 +70,7 @@ export function regionSummary(input: RegionInput | PreparedRegion): RegionSummar
   const latSpan = region.northDeg - region.southDeg;
   const kmPerDeg = 111.32;
   return {
-    areaKm2: regionAreaM2(region) / 1e6,
+    areaKm2: samples.areaKm2,
     bbox,
     parts: region.polygonCount,
     holes: region.holeCount,
