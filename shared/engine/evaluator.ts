@@ -42,7 +42,8 @@ export interface FactorEvaluator {
 
 /**
  * Compiles a resolved definition for repeated evaluation. Derivatives are analytic for Mercator,
- * cylindrical equal-area, equirectangular, Lambert conformal conic and Albers, and central
+ * transverse Mercator (and UTM), cylindrical equal-area, equirectangular, Lambert conformal
+ * conic, Albers and Mollweide, and central
  * differences of proj4's forward (step DERIVATIVE_STEP_RAD) for the others; M and N come from
  * the surface the projection really uses (resolved.factorEllipsoid).
  * Example: createFactorEvaluator(resolveDefinition('+proj=merc +R=1')).factorsRad(0, π/3, out) gives h = k = 2.

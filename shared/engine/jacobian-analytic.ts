@@ -1,5 +1,6 @@
 import type { JacobianRad } from './jacobian-numeric';
 import type { Proj4Projection } from './proj4-object';
+import { tmercJacobian } from './jacobian-tmerc';
 
 /**
  * Closed-form Jacobians (∂x/∂λ, ∂y/∂λ, ∂x/∂φ, ∂y/∂φ, metres per radian) for families whose forward
@@ -110,8 +111,10 @@ export function analyticJacobian(family: string, p: Proj4Projection): JacobianRa
         return conicJacobian(rho, dRho, n, n * wrap(lam - lon0), out);
       };
     }
+    case 'utm':
+      return tmercJacobian(p);
     case 'tmerc': {
-      if (p.es !== 0) return undefined;
+      if (p.es !== 0) return tmercJacobian(p);
       const ak = a * (p.k0 ?? 1);
       return (lam, phi, out) => {
         const dl = wrap(lam - lon0);
