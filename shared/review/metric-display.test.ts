@@ -24,3 +24,10 @@ describe('metric display', () => {
     expect(metricText(col({ display: 'plain' }), { a: { b: 1.234567 } }, false)).toBe('1.235');
   });
 });
+
+describe('metric display near zero', () => {
+  it('prints floating-point noise below 1e-9 as 0 and small real values in exponent form', () => {
+    expect(metricText(col({ display: 'plain' }), { a: { b: 7.44e-15 } }, false)).toBe('0');
+    expect(metricText(col({ display: 'plain' }), { a: { b: 0.00012345 } }, false)).toBe('1.23e-4');
+  });
+});

@@ -22,7 +22,8 @@ export function metricText(column: MetricColumn, metrics: Record<string, unknown
   const v = metricShown(column, metrics);
   if (v === null) return '–';
   const digits = Math.max(3, column.digits);
-  const text = Math.abs(v) >= 1e-3 || v === 0 ? Number(v.toPrecision(digits)).toString() : v.toExponential(2);
+  // Below 1e-9 a value is floating-point noise around zero (a conformal map's ω, say): show 0.
+  const text = Math.abs(v) < 1e-9 ? '0' : Math.abs(v) >= 1e-3 ? Number(v.toPrecision(digits)).toString() : v.toExponential(2);
   return withUnits ? `${text} ${column.units}` : text;
 }
 

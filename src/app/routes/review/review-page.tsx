@@ -2,7 +2,6 @@ import { useQuery, useSuspenseQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router';
 import { PURPOSE_LABELS, type MapPurposeName } from '@shared/api/projects.schema.js';
 import { PageHeader } from '@/components/layouts/page-header.js';
-import { Cautions } from '@/components/ui/cautions.js';
 import { isMember, sessionQueryOptions } from '@/features/auth/api/get-session.js';
 import { roundsQueryOptions } from '@/features/review/api/get-rounds.js';
 import { signOffQueryOptions } from '@/features/review/api/get-signoff.js';
@@ -28,7 +27,6 @@ function ReviewPage() {
     <>
       <PageHeader title={`Review: ${data.project.title}`} description={`For ${data.project.clientName} · ${purpose}`} />
       {isClient && isMember(session) ? <ReviewerView data={data} reviewerName={session.user.name} /> : <ReviewPanel projectId={projectId} />}
-      <Cautions compact className="mt-8" />
     </>
   );
 }
