@@ -33,11 +33,20 @@ export const emptyTally = (): CleanTally => ({
 /** 1e-9° is about 0.1 mm on the ground: far below any boundary's accuracy, and it makes the hash stable. */
 const round9 = (x: number) => Math.round(x * 1e9) / 1e9 + 0;
 
+/** A short quote of a bad coordinate; a list nested too deep to print (stack overflow) is named as such. */
+function preview(p: unknown): string {
+  try {
+    return String(JSON.stringify(p)).slice(0, 60);
+  } catch {
+    return 'a list nested too deep to show';
+  }
+}
+
 function checkPosition(p: Position, where: () => string): [number, number] {
   const lon = p?.[0];
   const lat = p?.[1];
   if (typeof lon !== 'number' || typeof lat !== 'number' || !Number.isFinite(lon) || !Number.isFinite(lat)) {
-    throw invalidRegion(`${where()} has a coordinate that is not a pair of numbers (${JSON.stringify(p)?.slice(0, 60)}).`);
+    throw invalidRegion(`${where()} has a coordinate that is not a pair of numbers (${preview(p)}).`);
   }
   if (lon < -180 || lon > 180 || lat < -90 || lat > 90) {
     throw invalidRegion(
@@ -77,11 +86,18 @@ function orient(ring: Ring, counterClockwise: boolean, tally: CleanTally): Ring 
   return ring.slice().reverse();
 }
 
-function polygonsOf(g: Geometry | null, tally: CleanTally): Position[][][] {
+/** GeometryCollections nested deeper than this are refused (real files nest one or two levels). */
+const MAX_COLLECTION_DEPTH = 32;
+
+function polygonsOf(g: Geometry | null, tally: CleanTally, depth = 0): Position[][][] {
   if (!g) return [];
   if (g.type === 'Polygon') return [g.coordinates];
   if (g.type === 'MultiPolygon') return g.coordinates;
-  if (g.type === 'GeometryCollection') return g.geometries.flatMap((x) => polygonsOf(x, tally));
+  if (g.type === 'GeometryCollection') {
+    if (depth >= MAX_COLLECTION_DEPTH) throw invalidRegion(`The file nests GeometryCollections more than ${MAX_COLLECTION_DEPTH} levels deep; flatten it first.`);
+    if (!Array.isArray(g.geometries)) throw invalidRegion('The file has a GeometryCollection without a "geometries" list.');
+    return g.geometries.flatMap((x) => polygonsOf(x, tally, depth + 1));
+  }
   tally.otherGeometriesIgnored++;
   return [];
 }

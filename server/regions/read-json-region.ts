@@ -70,7 +70,9 @@ function fromTopoJson(doc: Record<string, unknown>, fileName: string): ParsedReg
         if (f.geometry) features.push({ ...f, properties: { ...(f.properties ?? {}), layer: name } });
       }
     } catch (err) {
-      throw invalidRegion(`Object "${name}" of ${fileName} could not be decoded (${(err as Error).message.slice(0, 100)}).`);
+      // topojson-client throws plain JavaScript errors on bad input; their text means nothing to a cartographer.
+      const why = err instanceof TypeError || err instanceof RangeError ? 'its arcs, transform or geometry are malformed' : (err as Error).message.slice(0, 100);
+      throw invalidRegion(`Object "${name}" of ${fileName} could not be decoded (${why}).`);
     }
   }
   return { format: 'topojson', sourceCrs: 'EPSG:4326', features, notes: [] };
