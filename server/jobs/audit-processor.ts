@@ -3,6 +3,7 @@ import type { DataSource } from 'typeorm';
 import { Audit, Region, Scorecard } from '../entities/index.js';
 import type { AuditEngine } from './audit-engine.js';
 import { readSettings } from './audit-settings.js';
+import { recordActivity } from '../services/activity.service.js';
 import { encodeFields } from './fields-codec.js';
 
 export interface ProcessorContext {
@@ -74,6 +75,11 @@ export async function processAudit(
         { id: auditId },
         { status: 'done', progress: 1, error: null, finishedAt: new Date(), timings: { totalMs: Date.now() - started, ...result.timingsMs } },
       );
+      await recordActivity(tx, {
+        projectId: audit.projectId, studioId: audit.studioId, actor: null, kind: 'audit.finished',
+        summary: `Audit #${auditId} finished: ${result.candidates.length} candidate${result.candidates.length === 1 ? '' : 's'} scored`,
+        details: { auditId },
+      });
       return true;
     });
     await onProgress(1);
@@ -81,6 +87,11 @@ export async function processAudit(
   } catch (err) {
     ctx.logger.warn({ err, auditId }, 'audit failed');
     await audits.update({ id: auditId }, { status: 'failed', error: failureMessage(err), finishedAt: new Date() });
+    // The history line must never hide the failure itself.
+    await recordActivity(db, {
+      projectId: audit.projectId, studioId: audit.studioId, actor: null, kind: 'audit.failed',
+      summary: `Audit #${auditId} failed: ${failureMessage(err).slice(0, 200)}`, details: { auditId },
+    }).catch(() => {});
     throw err;
   }
 }

@@ -96,6 +96,9 @@ export async function sharedAuditEngine(): Promise<AuditEngine> {
   return (await shared).engine;
 }
 
+/** Whether this process's engine threads are already running (so a caller knows whether it opened them). */
+export const sharedAuditEngineRunning = () => shared !== undefined;
+
 export async function closeSharedAuditEngine(): Promise<void> {
   const s = shared;
   shared = undefined;

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import { seedDemoSubscription } from '../billing/demo-seed.js';
+import { seedDemoAudits } from '../jobs/demo-audits.js';
 import { seedDemoStudio, type DemoContext } from './demo-studio.js';
 
 export type { DemoContext } from './demo-studio.js';
@@ -12,7 +13,11 @@ export type DemoSeeder = (ctx: DemoContext) => Promise<void>;
  * Features add theirs here (e.g. demo projects, regions and audits): import the seeder and
  * append it to this array.
  */
-export const extraDemoSeeders: DemoSeeder[] = [seedDemoSubscription];
+export const extraDemoSeeders: DemoSeeder[] = [
+  seedDemoSubscription,
+  // Keep last: it computes an audit for each demo project the seeders above created.
+  seedDemoAudits,
+];
 
 /** Seeds the whole demo: the studio, its people, then every extra seeder. */
 export async function seedDemo(ds: DataSource): Promise<DemoContext> {

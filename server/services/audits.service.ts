@@ -54,9 +54,8 @@ export function auditInputHash(regionSha256: string, settings: StoredAuditSettin
 }
 
 /**
- * Creates a queued audit of the project's current region over the chosen candidates (all of the
- * project's when none are named) and hands it to the queue. If the queue cannot take it, the audit
- * row is removed again, so no audit is left that nothing will run.
+ * Creates a queued audit (see createAuditRow) and hands it to the queue. If the queue cannot take
+ * it, the audit row is removed again, so no audit is left that nothing will run.
  */
 export async function startAudit(
   db: DataSource,
@@ -66,12 +65,29 @@ export async function startAudit(
   enqueue: (auditId: number) => Promise<void>,
 ): Promise<AuditSummary> {
   const project = await loadProjectFor(db, actor, projectId, 'write');
+  const audit = await createAuditRow(db, project, actor.userId, input);
+  try {
+    await enqueue(audit.id);
+  } catch {
+    await db.getRepository(Audit).delete({ id: audit.id });
+    throw unavailable('The job queue is not reachable right now, so the audit was not started. Please try again in a moment.');
+  }
+  return auditSummary(audit);
+}
+
+/**
+ * Writes a queued audit of the project's current region over the chosen candidates (all of the
+ * project's when none are named), with its own copy of the candidates and its input hash.
+ * Refuses (and writes nothing) without a region, without candidates or with foreign candidate ids.
+ */
+export async function createAuditRow(db: DataSource, project: MapProject, createdById: number, input: StartAuditInput): Promise<Audit> {
+  const studioId = project.studioId;
   const region = await db.getRepository(Region).findOne({
     select: { id: true, sha256: true },
-    where: { projectId: project.id, studioId: actor.studioId, isCurrent: true },
+    where: { projectId: project.id, studioId, isCurrent: true },
   });
   if (!region) throw conflict('Upload the region to map before starting an audit.');
-  const all = await db.getRepository(Candidate).find({ where: { projectId: project.id, studioId: actor.studioId }, order: { id: 'ASC' } });
+  const all = await db.getRepository(Candidate).find({ where: { projectId: project.id, studioId }, order: { id: 'ASC' } });
   let chosen = all;
   if (input.candidateIds) {
     const byId = new Map(all.map((c) => [c.id, c]));
@@ -93,10 +109,10 @@ export async function startAudit(
     resolved: c.resolved,
   }));
   const settings: StoredAuditSettings = { samples: input.samples ?? SAMPLES_DEFAULT, seed: input.seed ?? DEFAULT_SEED, candidates };
-  const audit = await db.getRepository(Audit).save(
+  return db.getRepository(Audit).save(
     db.getRepository(Audit).create({
       projectId: project.id,
-      studioId: actor.studioId,
+      studioId,
       regionId: region.id,
       candidateIds: candidates.map((c) => c.id),
       status: 'queued',
@@ -104,16 +120,9 @@ export async function startAudit(
       settings,
       engineVersion: ENGINE_VERSION,
       inputHash: auditInputHash(region.sha256, settings, ENGINE_VERSION),
-      createdById: actor.userId,
+      createdById,
     }),
   );
-  try {
-    await enqueue(audit.id);
-  } catch {
-    await db.getRepository(Audit).delete({ id: audit.id });
-    throw unavailable('The job queue is not reachable right now, so the audit was not started. Please try again in a moment.');
-  }
-  return auditSummary(audit);
 }
 
 export async function listAudits(db: DataSource, actor: Actor, projectId: number): Promise<AuditSummary[]> {

@@ -4,6 +4,7 @@ import { prepareRegion } from '../../shared/engine/region/prepare.js';
 import { sampleRegion } from '../../shared/engine/sampling.js';
 import { scoreCandidate } from '../../shared/engine/scorecard.js';
 import { Audit, ProjectAccess, Scorecard } from '../../server/entities/index.js';
+import { seedDemoAudits } from '../../server/jobs/demo-audits.js';
 import { startAuditJobs, stopAuditJobs } from '../../server/jobs/runner.js';
 import { createAuditProject, waitForAudit, type AuditProject } from '../support/audit-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
@@ -150,5 +151,19 @@ describe('audits as background jobs', () => {
     const admin = await s.admin.post(`/api/projects/${p.projectId}/audits`, { samples: 1000 });
     expect(admin.status).toBe(202);
     await waitForAudit((u) => s.admin.get(u), admin.body.id);
+  });
+
+  it('computes an audit for each seeded project at start, once', async () => {
+    const demo = await createStudioWithRoles(t);
+    const a = await createAuditProject(t.deps, demo, { definitions: DEFS.slice(0, 2) });
+    const b = await createAuditProject(t.deps, demo, { definitions: [] });
+    const person = { email: '', name: '', userId: demo.users.cartographer.userId, membershipId: demo.users.cartographer.membershipId };
+    const ctx = { ds: t.deps.dataSource, studioId: demo.studioId, people: { admin: person, cartographer: person, editor: person, client: person } };
+    await seedDemoAudits(ctx);
+    await seedDemoAudits(ctx);
+    const audits = await t.deps.dataSource.getRepository(Audit).findBy({ projectId: a.projectId });
+    expect(audits.map((x) => x.status)).toEqual(['done']);
+    expect(await t.deps.dataSource.getRepository(Scorecard).countBy({ auditId: audits[0].id })).toBe(2);
+    expect(await t.deps.dataSource.getRepository(Audit).countBy({ projectId: b.projectId })).toBe(0);
   });
 });
