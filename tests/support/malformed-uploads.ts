@@ -110,7 +110,7 @@ export function hugeVertexTopoJson(vertices: number): Buffer {
 
 /** The shapefile fixture with one header field of .shp/.shx/.dbf set to nonsense, re-zipped. */
 async function brokenShapefileHeader(r: Rng, parts: Record<string, Buffer>): Promise<Buffer> {
-  const e = Object.fromEntries(Object.entries(parts).map(([k, v]) => [k, Buffer.from(v)]));
+  const e: Record<string, Buffer> = Object.fromEntries(Object.entries(parts).map(([k, v]) => [k, Buffer.from(v)]));
   const shp = Object.keys(e).find((k) => k.endsWith('.shp'))!;
   const shx = Object.keys(e).find((k) => k.endsWith('.shx'))!;
   const dbf = Object.keys(e).find((k) => k.endsWith('.dbf'))!;
