@@ -34,16 +34,19 @@ export interface FactorEvaluator {
   readonly method: 'analytic' | 'numeric';
   /** Projected x, y in metres including the false origin, or NaN where undefined. */
   forward(lamRad: number, phiRad: number, xy: Float64Array): void;
-  /** Writes h, k, s, ω°, a, b, γ°, θ′° into out[0..7]; returns false (out untouched) where undefined. */
-  factorsRad(lamRad: number, phiRad: number, out: Float64Array): boolean;
+  /**
+   * Writes h, k, s, ω°, a, b, γ° into out[0..6] (and θ′° into out[7] with withTheta); returns
+   * false where the projection is undefined, out's contents then being unspecified.
+   */
+  factorsRad(lamRad: number, phiRad: number, out: Float64Array, withTheta?: boolean): boolean;
   /** Factors for points start..end-1 of lon/lat arrays in degrees, written at the same indices of out. */
   factorsBatchDeg(lonDeg: ArrayLike<number>, latDeg: ArrayLike<number>, out: FactorArrays, start?: number, end?: number): void;
 }
 
 /**
  * Compiles a resolved definition for repeated evaluation. Derivatives are analytic for Mercator,
- * transverse Mercator (and UTM), cylindrical equal-area, equirectangular, Lambert conformal
- * conic, Albers and Mollweide, and central
+ * transverse Mercator (and UTM), Lambert azimuthal equal-area, cylindrical equal-area,
+ * equirectangular, Lambert conformal conic, Albers and Mollweide, and central
  * differences of proj4's forward (step DERIVATIVE_STEP_RAD) for the others; M and N come from
  * the surface the projection really uses (resolved.factorEllipsoid).
  * Example: createFactorEvaluator(resolveDefinition('+proj=merc +R=1')).factorsRad(0, π/3, out) gives h = k = 2.
@@ -68,8 +71,9 @@ export function createFactorEvaluator(resolved: ResolvedDefinition, options: { n
     }
   };
   const lon0 = projection.long0 ?? 0;
-  const analytic = options.numericOnly ? undefined : analyticJacobian(resolved.family.id, projection);
-  const jacobian: JacobianRad = analytic ?? numericJacobian(rawForward, lon0);
+  const numeric = () => numericJacobian(rawForward, lon0);
+  const analytic = options.numericOnly ? undefined : analyticJacobian(resolved.family.id, projection, numeric);
+  const jacobian: JacobianRad = analytic ?? numeric();
   const aM = resolved.factorEllipsoid.aM;
   const es = resolved.factorEllipsoid.es;
   const poleSingular = resolved.family.poleSingular;
@@ -79,10 +83,9 @@ export function createFactorEvaluator(resolved: ResolvedDefinition, options: { n
   const sinLat0 = Math.sin(lat0);
   const cosLat0 = Math.cos(lat0);
   const jac = new Float64Array(4);
-  const scratch = new Float64Array(8);
   const poleLimit = HALF_PI - POLE_GUARD_RAD;
 
-  const factorsRad = (lamIn: number, phiIn: number, out: Float64Array): boolean => {
+  const factorsRad = (lamIn: number, phiIn: number, out: Float64Array, withTheta = false): boolean => {
     let phi = phiIn;
     if (!(phi >= -HALF_PI && phi <= HALF_PI)) return false;
     if (phi > poleLimit || phi < -poleLimit) {
@@ -102,10 +105,9 @@ export function createFactorEvaluator(resolved: ResolvedDefinition, options: { n
     const sw = Math.sqrt(w);
     const mM = (aM * (1 - es)) / (w * sw);
     const nM = aM / sw;
-    tissotFromJacobian(jac[0], jac[1], jac[2], jac[3], mM, nM * cosPhi, scratch);
-    if (!(scratch[2] > 0) || !Number.isFinite(scratch[4])) return false;
-    for (let i = 0; i < 8; i++) out[i] = scratch[i];
-    return true;
+    tissotFromJacobian(jac[0], jac[1], jac[2], jac[3], mM, nM * cosPhi, out, withTheta);
+    const a = out[4];
+    return out[2] > 0 && a === a && a !== Infinity;
   };
 
   return {

@@ -28,7 +28,7 @@ export interface UndefinedFactors {
 export function factorsAt(resolved: ResolvedDefinition, lonDeg: number, latDeg: number): PointFactors | UndefinedFactors {
   const out = new Float64Array(8);
   const evaluator = createFactorEvaluator(resolved);
-  if (!evaluator.factorsRad(lonDeg * DEG_TO_RAD, latDeg * DEG_TO_RAD, out)) return { defined: false };
+  if (!evaluator.factorsRad(lonDeg * DEG_TO_RAD, latDeg * DEG_TO_RAD, out, true)) return { defined: false };
   return {
     defined: true,
     h: out[0],

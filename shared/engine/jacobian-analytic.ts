@@ -1,5 +1,6 @@
 import type { JacobianRad } from './jacobian-numeric';
 import type { Proj4Projection } from './proj4-object';
+import { laeaJacobian } from './jacobian-laea';
 import { tmercJacobian } from './jacobian-tmerc';
 
 /**
@@ -21,7 +22,7 @@ import { tmercJacobian } from './jacobian-tmerc';
  * iterations stop early near the poles, where s then drifts from 1 by up to 1e-6).
  * Example: for +proj=merc +R=1, ∂y/∂φ at φ = 60° is sec 60° = 2.
  */
-export function analyticJacobian(family: string, p: Proj4Projection): JacobianRad | undefined {
+export function analyticJacobian(family: string, p: Proj4Projection, numeric: () => JacobianRad): JacobianRad | undefined {
   const a = p.a;
   const lon0 = p.long0 ?? 0;
   const wrap = (dl: number) => (dl > Math.PI ? dl - 2 * Math.PI : dl < -Math.PI ? dl + 2 * Math.PI : dl);
@@ -113,6 +114,8 @@ export function analyticJacobian(family: string, p: Proj4Projection): JacobianRa
     }
     case 'utm':
       return tmercJacobian(p);
+    case 'laea':
+      return laeaJacobian(p, numeric());
     case 'tmerc': {
       if (p.es !== 0) return tmercJacobian(p);
       const ak = a * (p.k0 ?? 1);

@@ -17,8 +17,8 @@ export const T_H = 0, T_K = 1, T_S = 2, T_OMEGA_DEG = 3, T_A = 4, T_B = 5, T_CON
  * cancel where h ≈ k: ω of a conformal map comes out at rounding level, not √ε.
  *
  * Example: a conformal map with xl = N cos φ, yp = M gives h = k = 1, ω = 0.
- * Writes h, k, s, ω°, a, b, γ°, θ′° into out[0..7]. A reversed (mirrored) map has s < 0; its
- * areal scale is reported as |s|.
+ * Writes h, k, s, ω°, a, b, γ° into out[0..6], and θ′° into out[7] when withTheta is set. A
+ * reversed (mirrored) map has s < 0; its areal scale is reported as |s|.
  */
 export function tissotFromJacobian(
   xl: number,
@@ -28,6 +28,7 @@ export function tissotFromJacobian(
   mM: number,
   nCosPhiM: number,
   out: Float64Array,
+  withTheta = false,
 ): void {
   const p = xl / nCosPhiM;
   const q = yl / nCosPhiM;
@@ -36,8 +37,9 @@ export function tissotFromJacobian(
   const h = Math.sqrt(r * r + t * t);
   const k = Math.sqrt(p * p + q * q);
   let s = p * t - q * r;
-  let aPrime = Math.hypot(p + t, q - r);
-  let bPrime = Math.hypot(p - t, q + r);
+  const u1 = p + t, u2 = q - r, v1 = p - t, v2 = q + r;
+  let aPrime = Math.sqrt(u1 * u1 + u2 * u2);
+  let bPrime = Math.sqrt(v1 * v1 + v2 * v2);
   if (s < 0) {
     s = -s;
     const swap = aPrime;
@@ -52,6 +54,8 @@ export function tissotFromJacobian(
   const ratio = bPrime / aPrime;
   out[T_OMEGA_DEG] = 2 * Math.asin(ratio > 1 ? 1 : ratio) * RAD_TO_DEG;
   out[T_CONV_DEG] = -Math.atan2(xp, yp) * RAD_TO_DEG;
-  const sinTheta = s / (h * k);
-  out[T_THETA_DEG] = Math.asin(sinTheta > 1 ? 1 : sinTheta) * RAD_TO_DEG;
+  if (withTheta) {
+    const sinTheta = s / (h * k);
+    out[T_THETA_DEG] = Math.asin(sinTheta > 1 ? 1 : sinTheta) * RAD_TO_DEG;
+  }
 }
