@@ -12,6 +12,7 @@ import { signInPage } from './routes/auth/sign-in-page.js';
 import { signUpPage } from './routes/auth/sign-up-page.js';
 import { NotFoundPage } from './routes/not-found-page.js';
 import { comparePage } from './routes/projects/compare-page.js';
+import { projectPage } from './routes/projects/project-page.js';
 import { projectsPage } from './routes/projects/projects-page.js';
 import { RouteError } from './routes/route-error.js';
 import { reviewPage } from './routes/review/review-page.js';
@@ -23,7 +24,7 @@ import { peoplePage } from './routes/studio/people-page.js';
 const PUBLIC_PAGES: readonly PublicPage[] = [signInPage, signUpPage, acceptInvitePage, resetPasswordPage];
 
 /** Pages inside the signed-in frame; each may restrict itself to roles. */
-const MEMBER_PAGES: readonly MemberPage[] = [projectsPage, peoplePage, billingPage, reviewRequestsPage, reviewPage, comparePage];
+const MEMBER_PAGES: readonly MemberPage[] = [projectsPage, projectPage, peoplePage, billingPage, reviewRequestsPage, reviewPage, comparePage];
 
 /** The signed-in member, or a redirect to sign-in that comes back here afterwards. */
 async function requireMember(queryClient: QueryClient, request: Request): Promise<MemberSession> {

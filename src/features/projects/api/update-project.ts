@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { projectSchema, type UpdateProjectInput } from '@shared/api/projects.schema.js';
+import { proposalsQueryOptions } from '@/features/candidates/api/get-proposals.js';
 import { apiRequest } from '@/lib/api-client.js';
 import { projectQueryOptions } from './get-project.js';
 import { projectListsKey } from './get-projects.js';
@@ -15,7 +16,7 @@ export function useUpdateProject(projectId: number) {
     onSuccess: (project) => {
       queryClient.setQueryData(projectQueryOptions(projectId).queryKey, project);
       // The purpose changes which candidates are proposed.
-      void queryClient.invalidateQueries({ queryKey: [...projectQueryOptions(projectId).queryKey, 'proposals'] });
+      void queryClient.invalidateQueries({ queryKey: proposalsQueryOptions(projectId).queryKey });
       return queryClient.invalidateQueries({ queryKey: projectListsKey });
     },
   });
