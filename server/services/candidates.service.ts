@@ -16,6 +16,7 @@ import type { EngineThread } from '../candidates/engine-thread.js';
 import { Candidate, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, notFound, validationFailed } from '../http/errors.js';
+import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 
 export const MAX_CANDIDATES_PER_PROJECT = 50;
@@ -102,6 +103,11 @@ export async function addCandidate(ds: DataSource, actor: Actor, projectId: numb
         createdById: actor.userId,
       }),
     );
+    await recordActivity(m, {
+      projectId: project.id, studioId: actor.studioId, actor, kind: 'candidate.added',
+      summary: `Added the candidate “${saved.label}” (${data.origin})`,
+      details: { candidateId: saved.id, definition: data.definition },
+    });
     return toView(await repo.findOneByOrFail({ id: saved.id }));
   });
 }
@@ -121,7 +127,13 @@ export async function relabelCandidate(
   input: UpdateCandidateInput,
 ): Promise<CandidateView> {
   const c = await loadCandidate(ds, actor, projectId, candidateId, 'write');
-  await ds.getRepository(Candidate).update({ id: c.id }, { label: input.label });
+  await ds.transaction(async (m) => {
+    await m.getRepository(Candidate).update({ id: c.id }, { label: input.label });
+    await recordActivity(m, {
+      projectId: c.projectId, studioId: actor.studioId, actor, kind: 'candidate.relabelled',
+      summary: `Renamed the candidate “${c.label}” to “${input.label}”`, details: { candidateId: c.id },
+    });
+  });
   return toView({ ...c, label: input.label } as Candidate);
 }
 
@@ -135,7 +147,13 @@ export async function removeCandidate(ds: DataSource, actor: Actor, projectId: n
   if (used.length) {
     throw conflict(`“${c.label}” was used in audit #${used[0].id}; it stays so that audit’s scorecards keep their candidate.`);
   }
-  await ds.getRepository(Candidate).delete({ id: c.id, studioId: actor.studioId });
+  await ds.transaction(async (m) => {
+    await m.getRepository(Candidate).delete({ id: c.id, studioId: actor.studioId });
+    await recordActivity(m, {
+      projectId: c.projectId, studioId: actor.studioId, actor, kind: 'candidate.removed',
+      summary: `Removed the candidate “${c.label}”`, details: { candidateId: c.id, definition: c.definition },
+    });
+  });
 }
 
 async function currentRegionRow(ds: DataSource, actor: Actor, projectId: number) {

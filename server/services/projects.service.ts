@@ -9,6 +9,7 @@ import { listProjectsQuerySchema } from '../../shared/api/projects.schema.js';
 import { isStaffRole } from '../../shared/api/roles.js';
 import { Audit, Candidate, MapProject, ProjectAccess, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
+import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 
 /** Per-project figures shown beside a project in lists and on its page. */
@@ -116,6 +117,10 @@ export async function createProject(ds: DataSource, actor: Actor, input: CreateP
       createdById: actor.userId,
     }),
   );
+  await recordActivity(ds, {
+    projectId: saved.id, studioId: actor.studioId, actor, kind: 'project.created',
+    summary: `Created the project “${saved.title}” for ${saved.clientName}`,
+  });
   const fresh = await repo.findOneByOrFail({ id: saved.id });
   return toView(fresh, { region: null, candidateCount: 0, auditCount: 0 });
 }
@@ -137,5 +142,9 @@ export async function updateProject(
   await ds
     .getRepository(MapProject)
     .update({ id: project.id, studioId: actor.studioId }, { ...changes, updatedAt: () => 'CURRENT_TIMESTAMP(3)' });
+  await recordActivity(ds, {
+    projectId: project.id, studioId: actor.studioId, actor, kind: 'project.edited',
+    summary: `Edited the project’s ${Object.keys(changes).join(', ') || 'details'}`, details: { fields: Object.keys(changes) },
+  });
   return getProject(ds, actor, project.id);
 }

@@ -6,6 +6,7 @@ import { canonicalSha256 } from '../regions/canonical-json.js';
 import { checkRegionFile, inspection, pickedReport, pickFeatures, regionName } from '../regions/inspect-file.js';
 import { toGeometry } from '../regions/region-report.js';
 import type { UploadedFile } from '../regions/upload-middleware.js';
+import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 
 const toView = (r: Region): RegionView => ({
@@ -73,6 +74,11 @@ export async function storeRegion(
       }),
     );
     await m.getRepository(MapProject).update({ id: project.id }, { updatedAt: () => 'CURRENT_TIMESTAMP(3)' });
+    await recordActivity(m, {
+      projectId: project.id, studioId: actor.studioId, actor, kind: 'region.uploaded',
+      summary: `Uploaded the region “${row.name}” from ${upload.fileName} (${report.partCount} part${report.partCount === 1 ? '' : 's'}, ${report.vertexCount} vertices)`,
+      details: { regionId: row.id, sha256: row.sha256, sourceFormat: row.sourceFormat },
+    });
     return repo.findOneByOrFail({ id: row.id });
   });
   return toView(saved);

@@ -277,7 +277,7 @@ describe('comments and history', () => {
     expect((await s.client.get(`/api/projects/${p.projectId}/comments`)).body.comments).toHaveLength(2);
 
     const history = (await s.admin.get(`/api/projects/${p.projectId}/activity`)).body.events;
-    expect(history.map((e: { kind: string }) => e.kind)).toEqual(['comment.added', 'comment.added', 'round.requested']);
+    expect(history.map((e: { kind: string }) => e.kind)).toEqual(['comment.added', 'comment.added', 'round.requested', 'project.created']);
     expect(history[2]).toMatchObject({ actorName: s.users.editor.name, actorRole: 'editor' });
     expect((await s.client.get(`/api/projects/${p.projectId}/activity`)).status).toBe(403);
   });
