@@ -17,21 +17,24 @@ export interface SampleFields {
 
 const MAGIC = 'WMF1';
 const FACTOR_KEYS = ['h', 'k', 's', 'omegaDeg', 'a', 'b'] as const;
+const LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
 
 export function encodeFields(f: SampleFields): Buffer {
   const n = f.lonDeg.length;
-  const buf = Buffer.alloc(8 + n * 16 + n * 4 * FACTOR_KEYS.length);
-  buf.write(MAGIC, 0, 'ascii');
-  buf.writeUInt32LE(n, 4);
-  let off = 8;
-  for (const arr of [f.lonDeg, f.latDeg]) {
-    for (let i = 0; i < n; i++, off += 8) buf.writeDoubleLE(arr[i], off);
+  const header = Buffer.alloc(8);
+  header.write(MAGIC, 0, 'ascii');
+  header.writeUInt32LE(n, 4);
+  const parts: Buffer[] = [header];
+  if (LITTLE_ENDIAN) {
+    // The typed arrays' bytes are already little-endian: copy them as they are.
+    for (const arr of [f.lonDeg, f.latDeg, ...FACTOR_KEYS.map((k) => f[k])]) parts.push(Buffer.from(arr.buffer, arr.byteOffset, arr.byteLength));
+    return Buffer.concat(parts);
   }
-  for (const key of FACTOR_KEYS) {
-    const arr = f[key];
-    for (let i = 0; i < n; i++, off += 4) buf.writeFloatLE(arr[i], off);
-  }
-  return buf;
+  const body = Buffer.alloc(n * 16 + n * 4 * FACTOR_KEYS.length);
+  let off = 0;
+  for (const arr of [f.lonDeg, f.latDeg]) for (let i = 0; i < n; i++, off += 8) body.writeDoubleLE(arr[i], off);
+  for (const key of FACTOR_KEYS) for (let i = 0; i < n; i++, off += 4) body.writeFloatLE(f[key][i], off);
+  return Buffer.concat([header, body]);
 }
 
 export function decodeFields(buf: Buffer): SampleFields {
@@ -39,8 +42,9 @@ export function decodeFields(buf: Buffer): SampleFields {
   const n = buf.readUInt32LE(4);
   if (buf.length !== 8 + n * 16 + n * 4 * FACTOR_KEYS.length) throw new Error('the stored sample fields are truncated');
   // Copy into aligned typed arrays (the blob's offset inside its pool need not be aligned).
-  const f64 = (at: number) => new Float64Array(new Uint8Array(buf.subarray(at, at + n * 8)).buffer);
-  const f32 = (at: number) => new Float32Array(new Uint8Array(buf.subarray(at, at + n * 4)).buffer);
+  const bytes = (at: number, len: number) => new Uint8Array(buf.subarray(at, at + len)).buffer;
+  const f64 = (at: number) => (LITTLE_ENDIAN ? new Float64Array(bytes(at, n * 8)) : Float64Array.from({ length: n }, (_, i) => buf.readDoubleLE(at + 8 * i)));
+  const f32 = (at: number) => (LITTLE_ENDIAN ? new Float32Array(bytes(at, n * 4)) : Float32Array.from({ length: n }, (_, i) => buf.readFloatLE(at + 4 * i)));
   let off = 8;
   const lonDeg = f64(off);
   off += n * 8;

@@ -100,10 +100,12 @@ const workflowSection: BenchSection = {
         const t0 = performance.now();
         const up = await s.cartographer.agent.post(`/api/projects/${pid}/regions`).set('x-csrf-token', s.cartographer.csrf).field('features', 'all').attach('file', file, 'chile-10m.geojson');
         if (up.status !== 201 && up.status !== 200) throw new Error(`upload failed: ${up.status} ${JSON.stringify(up.body)}`);
+        const tUp = ms(t0);
         for (const definition of DEFINITIONS) {
           const c = await s.cartographer.post(`/api/projects/${pid}/candidates`, { definition });
           if (c.status !== 201) throw new Error(`candidate failed: ${c.status} ${JSON.stringify(c.body)}`);
         }
+        const tCand = ms(t0);
         const started = await s.cartographer.post(`/api/projects/${pid}/audits`, { samples: SAMPLES, seed: 1 });
         if (started.status !== 202) throw new Error(`audit refused: ${started.status} ${JSON.stringify(started.body)}`);
         for (;;) {
@@ -112,6 +114,7 @@ const workflowSection: BenchSection = {
           if (a.body.status === 'failed') throw new Error(a.body.error);
           await new Promise((r) => setTimeout(r, 10));
         }
+        if (process.env.WM_BENCH_PHASES) console.log(title, { uploadMs: tUp, candidatesMs: tCand - tUp, auditMs: ms(t0) - tCand });
         return { seconds: ms(t0) / 1000, auditId: started.body.id as number };
       };
 
