@@ -1,6 +1,7 @@
 import type { JacobianRad } from './jacobian-numeric';
 import type { Proj4Projection } from './proj4-object';
 import { laeaJacobian } from './jacobian-laea';
+import { stereJacobian } from './jacobian-stere';
 import { tmercJacobian } from './jacobian-tmerc';
 
 /**
@@ -116,6 +117,8 @@ export function analyticJacobian(family: string, p: Proj4Projection, numeric: ()
       return tmercJacobian(p);
     case 'laea':
       return laeaJacobian(p, numeric());
+    case 'stere':
+      return stereJacobian(p);
     case 'tmerc': {
       if (p.es !== 0) return tmercJacobian(p);
       const ak = a * (p.k0 ?? 1);
