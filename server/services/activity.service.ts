@@ -16,12 +16,12 @@ export interface ActivityInput {
 }
 
 /**
- * Appends one line to a project's history. Pass the transaction's manager so the line is written
- * with the change it describes, or not at all.
+ * Appends one line to a project's history and returns its id. Pass the transaction's manager so
+ * the line is written with the change it describes, or not at all.
  */
-export async function recordActivity(db: EntityManager | DataSource, input: ActivityInput): Promise<void> {
+export async function recordActivity(db: EntityManager | DataSource, input: ActivityInput): Promise<number> {
   const repo = db.getRepository(ActivityEvent);
-  await repo.save(repo.create({
+  const saved = await repo.save(repo.create({
     projectId: input.projectId,
     studioId: input.studioId,
     actorId: input.actor?.userId ?? null,
@@ -31,6 +31,7 @@ export async function recordActivity(db: EntityManager | DataSource, input: Acti
     summary: input.summary.slice(0, 300),
     details: input.details ?? null,
   }));
+  return saved.id;
 }
 
 const toView = (e: ActivityEvent): ActivityView => ({

@@ -6,12 +6,13 @@ import {
   type AuditSummary,
   type StartAuditInput,
 } from '../../shared/api/audits.schema.js';
-import { Audit, Candidate, MapProject, Region, Scorecard } from '../entities/index.js';
+import { ActivityEvent, Audit, Candidate, MapProject, Region, Scorecard } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, notFound, unavailable, validationFailed } from '../http/errors.js';
 import { readSettings, type AuditCandidateSnapshot, type StoredAuditSettings } from '../jobs/audit-settings.js';
 import { ENGINE_VERSION } from '../jobs/engine-instance.js';
 import { canonicalSha256 } from '../regions/canonical-json.js';
+import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 import { scorecardViews } from './scorecards.service.js';
 
@@ -66,10 +67,18 @@ export async function startAudit(
 ): Promise<AuditSummary> {
   const project = await loadProjectFor(db, actor, projectId, 'write');
   const audit = await createAuditRow(db, project, actor.userId, input);
+  // Written before the job is queued, so the history never shows an audit finishing before it started.
+  const { samples, seed } = readSettings(audit.settings);
+  const startedLine = await recordActivity(db, {
+    projectId: project.id, studioId: project.studioId, actor, kind: 'audit.started',
+    summary: `Started audit #${audit.id} of ${audit.candidateIds.length} candidate${audit.candidateIds.length === 1 ? '' : 's'} (${samples} samples, seed ${seed})`,
+    details: { auditId: audit.id },
+  });
   try {
     await enqueue(audit.id);
   } catch {
     await db.getRepository(Audit).delete({ id: audit.id });
+    await db.getRepository(ActivityEvent).delete({ id: startedLine });
     throw unavailable('The job queue is not reachable right now, so the audit was not started. Please try again in a moment.');
   }
   return auditSummary(audit);

@@ -79,16 +79,17 @@ describe('project history', () => {
 
     const events = (await s.editor.get(`/api/projects/${id}/activity`)).body.events as Array<{ kind: string; actorName: string; actorRole: string; summary: string; createdAt: string }>;
     const kinds = events.map((e) => e.kind).reverse();
-    for (const kind of ['project.created', 'region.uploaded', 'candidate.added', 'candidate.relabelled', 'candidate.removed', 'audit.finished', 'round.requested', 'round.approved', 'signoff.verified']) {
+    for (const kind of ['project.created', 'region.uploaded', 'candidate.added', 'candidate.relabelled', 'candidate.removed', 'audit.started', 'audit.finished', 'round.requested', 'round.approved', 'signoff.verified']) {
       expect(kinds, kind).toContain(kind);
     }
     // Oldest to newest, the story is in the order it happened.
-    const order = ['project.created', 'region.uploaded', 'candidate.removed', 'audit.finished', 'round.requested', 'round.approved', 'signoff.verified'];
+    const order = ['project.created', 'region.uploaded', 'candidate.removed', 'audit.started', 'audit.finished', 'round.requested', 'round.approved', 'signoff.verified'];
     expect(order.map((k) => kinds.indexOf(k))).toEqual([...order.map((k) => kinds.indexOf(k))].sort((a, b) => a - b));
     const byKind = (k: string) => events.find((e) => e.kind === k)!;
     expect(byKind('region.uploaded')).toMatchObject({ actorName: s.users.cartographer.name, actorRole: 'cartographer' });
     expect(byKind('region.uploaded').summary).toContain('loire.geojson');
     expect(byKind('candidate.removed').summary).toContain('Spare LAEA');
+    expect(byKind('audit.started')).toMatchObject({ actorRole: 'cartographer' });
     expect(byKind('audit.finished')).toMatchObject({ actorRole: 'system' });
     expect(byKind('round.approved')).toMatchObject({ actorName: s.users.client.name, actorRole: 'client' });
     expect(events.every((e) => !Number.isNaN(Date.parse(e.createdAt)))).toBe(true);
