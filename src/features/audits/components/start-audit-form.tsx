@@ -5,12 +5,12 @@ import { Alert } from '@/components/ui/alert.js';
 import { Button } from '@/components/ui/button.js';
 import { TextField } from '@/components/ui/form-field.js';
 import { isApiError } from '@/lib/api-client.js';
-import { projectCandidatesQueryOptions } from '../api/get-project-candidates.js';
+import { candidatesQueryOptions } from '@/features/candidates/api/get-candidates.js';
 import { useStartAudit } from '../api/start-audit.js';
 
 /** Chooses candidates, sample count and seed, and queues an audit. */
 export function StartAuditForm({ projectId, onStarted }: { projectId: number; onStarted?: (auditId: number) => void }) {
-  const candidates = useQuery(projectCandidatesQueryOptions(projectId));
+  const candidates = useQuery(candidatesQueryOptions(projectId));
   const start = useStartAudit(projectId);
   const [unchecked, setUnchecked] = useState<Set<number>>(new Set());
   const [samples, setSamples] = useState(String(SAMPLES_DEFAULT));
