@@ -12,6 +12,8 @@
  */
 const SPLITTER = 134217729; // 2^27 + 1
 const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
+/** "00".."99" as character codes, two per entry (read-only). */
+const PAIRS = Uint8Array.from({ length: 200 }, (_, i) => 48 + (i & 1 ? (i >> 1) % 10 : Math.floor((i >> 1) / 10)));
 
 /** Worst-case bytes appendDouble writes for one number. */
 export const MAX_DOUBLE_BYTES = 48;
@@ -34,33 +36,50 @@ export function appendDouble(buf: Uint8Array, start: number, x: number): number 
   if (!(ax >= 1e-5 && ax < 1e17)) return appendText(buf, pos, trimExp(ax.toPrecision(17)));
   let e = Math.floor(Math.log10(ax));
   if (e + 1 >= 0 && e < 16 && ax >= POW10[e + 1]) e++;
-  const k = 16 - e;
-  if (k > 22) return appendText(buf, pos, trimExp(ax.toPrecision(17)));
-  const p = POW10[k];
-  const hi = ax * p;
-  let t = SPLITTER * ax;
-  const ah = t - (t - ax);
-  const al = ax - ah;
-  t = SPLITTER * p;
-  const bh = t - (t - p);
-  const bl = p - bh;
-  const lo = al * bl - (hi - ah * bh - al * bh - ah * bl);
-  let q = Math.floor(hi / 1e8);
-  let r = hi - q * 1e8 + lo;
-  if (r < 0) { q -= 1; r += 1e8; } else if (r >= 1e8) { q += 1; r -= 1e8; }
-  let rr = Math.floor(r + 0.5);
-  if (rr >= 1e8) { rr -= 1e8; q += 1; }
-  if (q < 1e8) {
-    // log10 overestimated the exponent: one digit fewer before the point.
-    return appendText(buf, pos, trimExp(ax.toPrecision(17)));
+  let q = 0;
+  let rr = 0;
+  // Two tries at most: log10 may round up just below a power of ten (then q has 8 digits).
+  for (let attempt = 0; attempt < 2; attempt++) {
+    const k = 16 - e;
+    if (k > 22 || k < 0) return appendText(buf, pos, trimExp(ax.toPrecision(17)));
+    const p = POW10[k];
+    const hi = ax * p;
+    let t = SPLITTER * ax;
+    const ah = t - (t - ax);
+    const al = ax - ah;
+    t = SPLITTER * p;
+    const bh = t - (t - p);
+    const bl = p - bh;
+    const lo = al * bl - (hi - ah * bh - al * bh - ah * bl);
+    q = Math.floor(hi / 1e8);
+    let r = hi - q * 1e8 + lo;
+    if (r < 0) { q -= 1; r += 1e8; } else if (r >= 1e8) { q += 1; r -= 1e8; }
+    rr = Math.floor(r + 0.5);
+    if (rr >= 1e8) { rr -= 1e8; q += 1; }
+    if (q >= 1e8) break;
+    e -= 1;
   }
+  if (q < 1e8) return appendText(buf, pos, trimExp(ax.toPrecision(17)));
   if (q >= 1e9) { q = 100000000; rr = 0; e += 1; }
   // 17 digits, q (9) then rr (8), written right to left into scratch space past the output.
   const d = pos + 24;
   let qi = q | 0;
   let ri = rr | 0;
-  for (let i = 16; i >= 9; i--) { const n = (ri / 10) | 0; buf[d + i] = 48 + ri - n * 10; ri = n; }
-  for (let i = 8; i >= 0; i--) { const n = (qi / 10) | 0; buf[d + i] = 48 + qi - n * 10; qi = n; }
+  for (let i = 15; i >= 9; i -= 2) {
+    const n = (ri / 100) | 0;
+    const pair = (ri - n * 100) << 1;
+    buf[d + i] = PAIRS[pair];
+    buf[d + i + 1] = PAIRS[pair + 1];
+    ri = n;
+  }
+  for (let i = 7; i >= 1; i -= 2) {
+    const n = (qi / 100) | 0;
+    const pair = (qi - n * 100) << 1;
+    buf[d + i] = PAIRS[pair];
+    buf[d + i + 1] = PAIRS[pair + 1];
+    qi = n;
+  }
+  buf[d] = 48 + qi;
   let last = 16;
   while (last > 0 && buf[d + last] === 48) last--;
   if (e >= 0) {
