@@ -26,11 +26,11 @@ export function regionsRoutes(deps: AppDeps): RouteSpec[] {
       path: '/projects/:projectId/regions',
       access: WRITE,
       before: [regionUpload],
-      summary: 'Upload a region file (field "file"; "features" = all or indexes to merge) as the current region',
+      summary: 'Upload a region file (field "file"; "features" = all or indexes to merge; optional "name") as the current region',
       handler: async (req, res) => {
         const projectId = project(req.params.projectId);
-        const { features: pick } = storeRegionFieldsSchema.parse({ features: req.body?.features ?? 'all' });
-        const region = await storeRegion(ds, req.actor!, projectId, uploadedFile(req.file), pick);
+        const fields = storeRegionFieldsSchema.parse({ features: req.body?.features ?? 'all', name: req.body?.name || undefined });
+        const region = await storeRegion(ds, req.actor!, projectId, uploadedFile(req.file), fields.features, fields.name);
         res.status(201);
         return region;
       },

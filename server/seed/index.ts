@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { seedDemoSubscription } from '../billing/demo-seed.js';
 import { seedDemoAudits } from '../jobs/demo-audits.js';
+import { seedDemoProjects } from './demo-projects.js';
 import { seedDemoStudio, type DemoContext } from './demo-studio.js';
 
 export type { DemoContext } from './demo-studio.js';
@@ -15,6 +16,7 @@ export type DemoSeeder = (ctx: DemoContext) => Promise<void>;
  */
 export const extraDemoSeeders: DemoSeeder[] = [
   seedDemoSubscription,
+  seedDemoProjects,
   // Keep last: it computes an audit for each demo project the seeders above created.
   seedDemoAudits,
 ];

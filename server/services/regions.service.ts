@@ -44,6 +44,7 @@ export async function storeRegion(
   projectId: number,
   upload: UploadedFile,
   pick: FeaturePick,
+  name?: string,
 ): Promise<RegionView> {
   const project = await loadProjectFor(ds, actor, projectId, 'write');
   const checked = await checkRegionFile(upload.buffer, upload.fileName);
@@ -57,7 +58,7 @@ export async function storeRegion(
       repo.create({
         projectId: project.id,
         studioId: actor.studioId,
-        name: regionName(picked),
+        name: name || regionName(picked),
         sourceFileName: upload.fileName,
         sourceFormat: checked.file.format,
         sourceCrs: checked.file.sourceCrs,

@@ -75,7 +75,11 @@ export const featurePickSchema = z
 export type FeaturePick = z.output<typeof featurePickSchema>;
 
 /** The non-file form fields of the store upload. */
-export const storeRegionFieldsSchema = z.object({ features: featurePickSchema });
+export const storeRegionFieldsSchema = z.object({
+  features: featurePickSchema,
+  /** A name for the region; by default the picked features' names. */
+  name: z.string().trim().max(200, 'A region name is at most 200 characters.').optional(),
+});
 
 export const regionSchema = z.object({
   id: z.number(),

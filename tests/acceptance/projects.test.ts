@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Candidate, ProjectAccess, Region } from '../../server/entities/index.js';
+import { Candidate, MapProject, ProjectAccess, Region } from '../../server/entities/index.js';
+import { DEMO_PROJECTS, seedDemoProjects } from '../../server/seed/demo-projects.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -134,5 +135,37 @@ describe('map projects', () => {
 
     expect((await s.editor.get('/api/projects?sort=colour')).status).toBe(422);
     expect((await s.editor.get('/api/projects?status=lost')).status).toBe(422);
+  });
+});
+
+describe('demo projects', () => {
+  it('seeds three projects on real boundaries with proposed candidates, once', async () => {
+    const demo = await createStudioWithRoles(t);
+    const person = (role: 'admin' | 'cartographer' | 'editor' | 'client') => ({ ...demo.users[role] });
+    const ctx = { ds: t.deps.dataSource, studioId: demo.studioId, people: { admin: person('admin'), cartographer: person('cartographer'), editor: person('editor'), client: person('client') } };
+    await seedDemoProjects(ctx);
+    const ds = t.deps.dataSource;
+    const projects = await ds.getRepository(MapProject).find({ where: { studioId: demo.studioId }, order: { id: 'ASC' } });
+    expect(projects.map((p) => p.title)).toEqual(DEMO_PROJECTS.map((d) => d.input.title));
+    const counts = async () =>
+      Promise.all(projects.map(async (p) => [await ds.getRepository(Region).countBy({ projectId: p.id }), await ds.getRepository(Candidate).countBy({ projectId: p.id })]));
+    const before = await counts();
+    for (const [i, p] of projects.entries()) {
+      const region = await ds.getRepository(Region).findOneByOrFail({ projectId: p.id, isCurrent: true });
+      expect(region.name).toBe(DEMO_PROJECTS[i].regionName);
+      expect(region.areaKm2).toBeGreaterThan(100_000);
+      const candidates = await ds.getRepository(Candidate).findBy({ projectId: p.id });
+      expect(candidates.filter((c) => c.origin === 'proposed')).toHaveLength(DEMO_PROJECTS[i].proposals);
+      expect(candidates.every((c) => c.origin !== 'proposed' || (c.reason ?? '').length > 10)).toBe(true);
+    }
+    // The Arctic project sits at high latitude: its proposals are polar aspects.
+    const arctic = await ds.getRepository(Candidate).findBy({ projectId: projects[2].id });
+    expect(arctic.some((c) => /\+lat_0=90\b/.test(c.resolved))).toBe(true);
+    // Editors see them through the API like any project.
+    const list = await demo.editor.get('/api/projects?sort=title');
+    expect(list.body.projects.map((p: { title: string }) => p.title)).toEqual([...DEMO_PROJECTS.map((d) => d.input.title)].sort());
+    await seedDemoProjects(ctx);
+    expect(await counts()).toEqual(before);
+    expect(await ds.getRepository(MapProject).countBy({ studioId: demo.studioId })).toBe(3);
   });
 });
