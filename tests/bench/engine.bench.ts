@@ -7,6 +7,7 @@
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
 import { feature } from 'topojson-client';
 import { resolveDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, createFactorEvaluator } from '../../shared/engine/evaluator';
@@ -41,6 +42,10 @@ function europePoints() {
 }
 
 const seconds = (t0: number) => (performance.now() - t0) / 1000;
+const cpuSeconds = (c0: NodeJS.CpuUsage) => {
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1e6;
+};
 const ratio = (x: number) => `${x.toFixed(2)}×`;
 
 function wall(cmd: string, args: string[], inputFile: string): Promise<number> {
@@ -66,13 +71,17 @@ const factorsSection: BenchSection = {
         const out = allocFactorArrays(N);
         ev.factorsBatchDeg(lon, lat, out, 0, 50_000); // warm-up
         let t0 = performance.now();
+        const c0 = process.cpuUsage();
         ev.factorsBatchDeg(lon, lat, out);
         const engine = seconds(t0);
+        const engineCpu = cpuSeconds(c0);
         await pool.factors(resolved, lon.subarray(0, 50_000), lat.subarray(0, 50_000)); // warm-up
         t0 = performance.now();
         await pool.factors(resolved, lon, lat);
         const pooled = seconds(t0);
-        const proj = Number(execFileSync(harness, ['--time', '1', def], { input: readFileSync(pointsFile) }).toString().split('\t')[1]);
+        const timing = execFileSync(harness, ['--time', '1', def], { input: readFileSync(pointsFile) }).toString().split('\t');
+        const proj = Number(timing[1]);
+        const projCpu = Number(timing[3]);
         const cli = await wall(process.execPath, [`${repoRoot}server/cli/bin.mjs`, 'factors', '--proj', def], pointsFile);
         const projS = await wall('proj', ['-S', ...def.split(' ')], pointsFile);
         rows.push({
@@ -81,6 +90,7 @@ const factorsSection: BenchSection = {
           'proj_factors() s': proj.toFixed(3),
           'engine 1 thread s': engine.toFixed(3),
           'engine vs PROJ': ratio(proj / engine),
+          'engine vs PROJ (CPU time)': ratio(projCpu / engineCpu),
           'pool (2 workers) s': pooled.toFixed(3),
           'pool vs PROJ': ratio(proj / pooled),
           'proj -S s': projS.toFixed(2),
@@ -91,6 +101,7 @@ const factorsSection: BenchSection = {
     } finally {
       await pool.close();
     }
+    rows.push({ family: `load average at the end: ${loadavg().map((x) => x.toFixed(1)).join(' ')}` });
     return rows;
   },
 };
@@ -125,6 +136,7 @@ const auditSection: BenchSection = {
           'factors s': (report.timingsMs.factors / 1000).toFixed(2),
           'scoring s': (report.timingsMs.scoring / 1000).toFixed(2),
           'audit wall s': total.toFixed(2),
+          'load average': loadavg().map((x) => x.toFixed(1)).join(' '),
         },
       ];
     } finally {
