@@ -126,6 +126,9 @@ export function displayValue(column: MetricColumn, metrics: Record<string, unkno
   return v;
 }
 
+/** Relative difference below which two metric values rank as equal. */
+const TIE_RELATIVE = 1e-9;
+
 export const columnFor = (key: string) => SCORECARD_COLUMNS.find((c) => c.key === key)!;
 
 /**
@@ -143,7 +146,9 @@ export function rankForPurpose(
     .sort((x, y) => {
       const a = key(x), b = key(y);
       if (a === null || b === null) return a === b ? 0 : a === null ? 1 : -1;
-      return sign * (a - b) || (metricValue(x.metrics, 'airyKavrayskiy') ?? Infinity) - (metricValue(y.metrics, 'airyKavrayskiy') ?? Infinity);
+      // Values equal to rounding (e.g. two equal-area maps, both with a spread of 1) are ties.
+      const tie = Math.abs(a - b) <= TIE_RELATIVE * Math.max(Math.abs(a), Math.abs(b));
+      return (tie ? 0 : sign * (a - b)) || (metricValue(x.metrics, 'airyKavrayskiy') ?? Infinity) - (metricValue(y.metrics, 'airyKavrayskiy') ?? Infinity);
     })
     .map((c) => c.candidateId);
   return { column, order };

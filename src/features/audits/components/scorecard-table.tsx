@@ -28,6 +28,7 @@ export function ScorecardTable({ cards, purpose }: { cards: ScorecardView[]; pur
       key: 'label',
       header: 'Candidate',
       rowHeader: true,
+      className: 'min-w-52',
       sortValue: (c) => c.label,
       cell: (c) => (
         <div className="flex flex-col gap-0.5">
