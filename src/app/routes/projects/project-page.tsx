@@ -14,6 +14,7 @@ import { ProjectDetailsForm } from '@/features/projects/components/project-detai
 import { formatAreaKm2, STATUS_TONES } from '@/features/projects/components/project-options.js';
 import { ProjectTabs, type ProjectTab } from '@/features/projects/components/project-tabs.js';
 import { RegionPanel } from '@/features/regions/components/region-panel.js';
+import { HistoryPanel } from '@/features/review/components/history-panel.js';
 import { ReviewPanel } from '@/features/review/components/review-panel.js';
 import type { MemberPage } from '../../route-types.js';
 
@@ -39,6 +40,10 @@ function ProjectPage() {
     { id: 'candidates', label: `Candidates (${project.candidateCount})`, render: () => <CandidatesPanel projectId={projectId} canEdit={canEdit} /> },
     { id: 'audits', label: `Audits (${project.auditCount})`, render: () => <AuditsPanel projectId={projectId} /> },
     { id: 'review', label: 'Review', render: () => <ReviewPanel projectId={projectId} /> },
+    // The history is the studio's own record of work; reviewers see the review and comments instead.
+    ...(hasRole(session, ['admin', 'cartographer', 'editor'])
+      ? [{ id: 'history', label: 'History', render: () => <HistoryPanel projectId={projectId} /> }]
+      : []),
   ];
   const selected = search.get('tab') ?? (project.region ? 'candidates' : 'region');
 

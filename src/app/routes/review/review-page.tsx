@@ -1,12 +1,10 @@
-import { useQuery, useSuspenseQuery } from '@tanstack/react-query';
+import { useSuspenseQuery } from '@tanstack/react-query';
 import { useParams } from 'react-router';
 import { PURPOSE_LABELS, type MapPurposeName } from '@shared/api/projects.schema.js';
 import { PageHeader } from '@/components/layouts/page-header.js';
-import { isMember, sessionQueryOptions } from '@/features/auth/api/get-session.js';
 import { roundsQueryOptions } from '@/features/review/api/get-rounds.js';
 import { signOffQueryOptions } from '@/features/review/api/get-signoff.js';
 import { ReviewPanel } from '@/features/review/components/review-panel.js';
-import { ReviewerView } from '@/features/review/components/reviewer-view.js';
 import type { MemberPage } from '../../route-types.js';
 
 const projectIdOf = (raw: string | undefined) => {
@@ -16,17 +14,15 @@ const projectIdOf = (raw: string | undefined) => {
   return id;
 };
 
-/** `/review/:projectId`: where the e-mailed link leads. Reviewers decide here; staff see the same review tab as on the project. */
+/** `/review/:projectId`: where the e-mailed link leads; the project's review tab on a page of its own. */
 function ReviewPage() {
   const projectId = projectIdOf(useParams().projectId);
   const { data } = useSuspenseQuery(roundsQueryOptions(projectId));
-  const { data: session } = useQuery(sessionQueryOptions());
-  const isClient = isMember(session) && session.membership.role === 'client';
   const purpose = PURPOSE_LABELS[data.project.purpose as MapPurposeName] ?? data.project.purpose;
   return (
     <>
       <PageHeader title={`Review: ${data.project.title}`} description={`For ${data.project.clientName} · ${purpose}`} />
-      {isClient && isMember(session) ? <ReviewerView data={data} reviewerName={session.user.name} /> : <ReviewPanel projectId={projectId} />}
+      <ReviewPanel projectId={projectId} />
     </>
   );
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { signOffSchema, type ApproveRoundInput } from '@shared/api/review.schema.js';
 import { apiRequest } from '@/lib/api-client.js';
-import { roundsQueryOptions } from './get-rounds.js';
+import { refreshProject } from './invalidate-project.js';
 import { signOffQueryOptions } from './get-signoff.js';
 
 /** `POST /api/rounds/:roundId/approve` (the reviewer): approves one candidate; answers with the sealed record. */
@@ -14,7 +14,7 @@ export function useApproveRound(projectId: number, roundId: number) {
     mutationFn: (input: ApproveRoundInput) => approveRound(roundId, input),
     onSuccess: async (signOff) => {
       queryClient.setQueryData(signOffQueryOptions(projectId).queryKey, signOff);
-      await queryClient.invalidateQueries({ queryKey: roundsQueryOptions(projectId).queryKey });
+      await refreshProject(queryClient, projectId);
     },
   });
 }

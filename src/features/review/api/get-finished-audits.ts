@@ -1,15 +1,14 @@
 import { queryOptions } from '@tanstack/react-query';
-import { auditDetailSchema, auditListSchema } from '@shared/api/audits.schema.js';
-import { apiRequest } from '@/lib/api-client.js';
+import { getAudit } from '@/features/audits/api/get-audit.js';
+import { getAudits } from '@/features/audits/api/get-audits.js';
 
 /**
- * The project's finished audits with their scorecards, for picking a shortlist:
- * `GET /api/projects/:projectId/audits`, then `GET /api/audits/:auditId` for each finished one.
+ * The project's finished audits with their scorecards, for picking a shortlist: the audits
+ * feature's own list and detail requests, the detail fetched for each finished audit.
  */
 export async function getFinishedAudits(projectId: number, signal?: AbortSignal) {
-  const { audits } = await apiRequest(`/projects/${projectId}/audits`, { schema: auditListSchema, signal });
-  const done = audits.filter((a) => a.status === 'done');
-  return Promise.all(done.map((a) => apiRequest(`/audits/${a.id}`, { schema: auditDetailSchema, signal })));
+  const { audits } = await getAudits(projectId, signal);
+  return Promise.all(audits.filter((a) => a.status === 'done').map((a) => getAudit(a.id, signal)));
 }
 
 export const finishedAuditsQueryOptions = (projectId: number) =>

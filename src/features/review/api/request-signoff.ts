@@ -1,8 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { roundSchema, type RequestSignOffInput } from '@shared/api/review.schema.js';
 import { apiRequest } from '@/lib/api-client.js';
-import { activityQueryOptions } from './get-activity.js';
-import { roundsQueryOptions } from './get-rounds.js';
+import { refreshProject } from './invalidate-project.js';
 
 /** `POST /api/projects/:projectId/rounds` (editor, admin): sends the shortlist and e-mails the reviewers. */
 export const requestSignOff = (projectId: number, input: RequestSignOffInput) =>
@@ -12,9 +11,6 @@ export function useRequestSignOff(projectId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: RequestSignOffInput) => requestSignOff(projectId, input),
-    onSuccess: async () => {
-      await queryClient.invalidateQueries({ queryKey: roundsQueryOptions(projectId).queryKey });
-      await queryClient.invalidateQueries({ queryKey: activityQueryOptions(projectId).queryKey });
-    },
+    onSuccess: () => refreshProject(queryClient, projectId),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { roundSchema, type ReturnRoundInput } from '@shared/api/review.schema.js';
 import { apiRequest } from '@/lib/api-client.js';
-import { roundsQueryOptions } from './get-rounds.js';
+import { refreshProject } from './invalidate-project.js';
 
 /** `POST /api/rounds/:roundId/return` (the reviewer): sends the shortlist back with a comment. */
 export const returnRound = (roundId: number, input: ReturnRoundInput) =>
@@ -11,6 +11,6 @@ export function useReturnRound(projectId: number, roundId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: ReturnRoundInput) => returnRound(roundId, input),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: roundsQueryOptions(projectId).queryKey }),
+    onSuccess: () => refreshProject(queryClient, projectId),
   });
 }

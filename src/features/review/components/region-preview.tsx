@@ -1,12 +1,12 @@
 import { useQuery } from '@tanstack/react-query';
 import { Spinner } from '@/components/ui/spinner.js';
-import { regionOutlineQueryOptions } from '../api/get-region-outline.js';
+import { overlayQueryOptions } from '@/features/audits/api/get-overlay.js';
 
 const path = (line: [number, number][]) => line.map(([x, y], i) => `${i ? 'L' : 'M'}${x.toFixed(1)} ${y.toFixed(1)}`).join('');
 
 /** The mapped region with its graticule, drawn in one shortlisted candidate's projection. */
 export function RegionPreview({ auditId, candidateId, label }: { auditId: number; candidateId: number; label: string }) {
-  const outline = useQuery(regionOutlineQueryOptions(auditId, candidateId));
+  const outline = useQuery(overlayQueryOptions(auditId, candidateId));
   if (outline.isPending) return <Spinner label="Drawing the region…" />;
   if (outline.isError) return <p className="text-sm text-ink-600">The region preview is not available.</p>;
   const o = outline.data;

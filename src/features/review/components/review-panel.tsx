@@ -2,19 +2,20 @@ import { useQuery } from '@tanstack/react-query';
 import { Alert } from '@/components/ui/alert.js';
 import { Card, CardBody, CardHeader } from '@/components/ui/card.js';
 import { Spinner } from '@/components/ui/spinner.js';
-import { hasRole, sessionQueryOptions } from '@/features/auth/api/get-session.js';
+import { hasRole, isMember, sessionQueryOptions } from '@/features/auth/api/get-session.js';
 import { finishedAuditsQueryOptions } from '../api/get-finished-audits.js';
 import { roundsQueryOptions } from '../api/get-rounds.js';
 import { signOffQueryOptions } from '../api/get-signoff.js';
 import { CommentsThread } from './comments-thread.js';
 import { RequestForm } from './request-form.js';
+import { ReviewerView } from './reviewer-view.js';
 import { RoundCard } from './round-card.js';
 import { SignOffRecord } from './signoff-record.js';
 
 /**
- * The project's review tab for the studio: the sealed record once there is one, the form that
+ * The project's review tab. For the studio: the sealed record once there is one, the form that
  * sends a shortlist for sign-off (editors and admins, when no round is waiting), every round so
- * far, and the comment thread shared with the reviewers.
+ * far, and the comment thread shared with the reviewers. For a client reviewer: ReviewerView.
  */
 export function ReviewPanel({ projectId }: { projectId: number }) {
   const session = useQuery(sessionQueryOptions());
@@ -27,6 +28,10 @@ export function ReviewPanel({ projectId }: { projectId: number }) {
 
   if (rounds.isPending) return <Spinner label="Loading the review…" />;
   if (rounds.isError) return <Alert tone="error">The review rounds could not be loaded.</Alert>;
+  // A client reviewer decides here; the studio's tools below are not theirs.
+  if (isMember(session.data) && session.data.membership.role === 'client') {
+    return <ReviewerView data={rounds.data} reviewerName={session.data.user.name} />;
+  }
   const { project } = rounds.data;
   return (
     <div className="flex flex-col gap-6">
