@@ -110,7 +110,10 @@ const workflowSection: BenchSection = {
         if (started.status !== 202) throw new Error(`audit refused: ${started.status} ${JSON.stringify(started.body)}`);
         for (;;) {
           const a = await s.cartographer.get(`/api/audits/${started.body.id}`);
-          if (a.body.status === 'done') break;
+          if (a.body.status === 'done') {
+            if (process.env.WM_BENCH_PHASES) console.log(title, 'audit timings', (await t.deps.dataSource.query('SELECT timings, startedAt, finishedAt, createdAt FROM audits WHERE id = ?', [started.body.id]))[0]);
+            break;
+          }
           if (a.body.status === 'failed') throw new Error(a.body.error);
           await new Promise((r) => setTimeout(r, 10));
         }
