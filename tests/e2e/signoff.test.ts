@@ -9,10 +9,10 @@ import { createStudioWithRoles, type StudioFixture } from '../support/studio-fix
 import { mailTo } from '../support/test-app.js';
 
 /**
- * Sign-off in a real browser: the editor sends a shortlist (through the API, as the review tab
- * does), a reviewer with no account follows the e-mailed link, chooses a password, opens the
- * compare view of the shortlist, and approves one candidate with their typed name; the editor
- * then sees the approval and its record hash.
+ * Sign-off in a real browser: the editor shortlists two candidates on the project's Review tab
+ * and sends them to a reviewer with no account; the reviewer follows the e-mailed link, chooses a
+ * password, opens the compare view of the shortlist, and approves one candidate with their typed
+ * name; the editor then sees the approval, its record hash and the project's history.
  */
 const tag = randomBytes(4).toString('hex');
 const reviewer = { name: `Rosa Reviewer ${tag}`, email: `rosa.${tag}@client.e2e.warpmeter.test`, password: 'equal-area-or-nothing' };
@@ -27,13 +27,6 @@ beforeAll(async () => {
   served = await serveApp();
   s = await createStudioWithRoles(served);
   p = await seedAuditedProject(served.deps, s, { title: `Wetlands atlas ${tag}`, score: engineScore, samples: 2000 });
-  const round = await s.editor.post(`/api/projects/${p.projectId}/rounds`, {
-    auditId: p.auditId,
-    candidateIds: p.candidateIds.slice(0, 2),
-    recommendation: 'We recommend the Albers projection.\n\n- true areas for the wetland statistics\n- a familiar outline',
-    reviewerEmails: [reviewer.email],
-  });
-  expect(round.status, JSON.stringify(round.body)).toBe(201);
   reviewerBrowser = await launchBrowser({ baseURL: served.url });
   editorBrowser = await launchBrowser({ baseURL: served.url });
 });
@@ -53,8 +46,35 @@ async function linkFromMail(): Promise<string> {
   return `${url.pathname}${url.search}`;
 }
 
+async function signIn(page: Page, email: string, password: string) {
+  await page.waitForURL('**/sign-in?next=**');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
 describe('client sign-off in the browser', () => {
   let page: Page;
+  let editorPage: Page;
+
+  it('the editor shortlists two candidates on the Review tab and sends them for sign-off', async () => {
+    editorPage = await editorBrowser.newPage();
+    await editorPage.goto(`/projects/${p.projectId}?tab=review`);
+    await signIn(editorPage, s.users.editor.email, s.users.editor.password);
+    await editorPage.waitForURL(`**/projects/${p.projectId}?tab=review`);
+    const form = editorPage.getByRole('form', { name: 'Request sign-off' });
+    await form.getByRole('button', { name: 'Send for sign-off' }).click();
+    await form.getByText('Shortlist at least one candidate.').waitFor();
+    await form.getByRole('checkbox', { name: /Albers equal-area/ }).check();
+    await form.getByRole('checkbox', { name: /Lambert conformal conic/ }).check();
+    await form.getByLabel('Recommendation').fill('We recommend the Albers projection.\n\n- true areas for the wetland statistics\n- a familiar outline');
+    await form.getByText('As the client will read it').waitFor();
+    await form.getByLabel('Reviewers’ e-mail addresses').fill(reviewer.email);
+    await form.getByRole('button', { name: 'Send for sign-off' }).click();
+    await editorPage.getByText('Round 1 is with the client').waitFor();
+    await editorPage.getByRole('region', { name: /Round 1/ }).getByText('Awaiting the client').waitFor();
+    await editorPage.screenshot({ path: screenshotPath('signoff-request.png'), fullPage: true });
+  });
 
   it('the reviewer follows the e-mailed link, sets a password and lands on the review', async () => {
     page = await reviewerBrowser.newPage();
@@ -102,19 +122,17 @@ describe('client sign-off in the browser', () => {
     await page.screenshot({ path: screenshotPath('signoff-approved.png'), fullPage: true });
   });
 
-  it('the editor sees the approval and the record', async () => {
-    const editorPage = await editorBrowser.newPage();
-    await editorPage.goto(`/review/${p.projectId}`);
-    await editorPage.waitForURL('**/sign-in?next=**');
-    await editorPage.getByLabel('E-mail').fill(s.users.editor.email);
-    await editorPage.getByLabel('Password').fill(s.users.editor.password);
-    await editorPage.getByRole('button', { name: 'Sign in' }).click();
-    await editorPage.waitForURL(`**/review/${p.projectId}`);
+  it('the editor sees the approval, the record and the history', async () => {
+    await editorPage.reload();
     const round = editorPage.getByRole('region', { name: /Round 1/ });
     await round.getByText('Approved', { exact: true }).first().waitFor();
     await round.getByText(`${reviewer.name} approved “Lambert conformal conic”`).waitFor();
     const stored = await served.deps.dataSource.getRepository(SignOff).findOneByOrFail({ projectId: p.projectId });
     expect(await editorPage.getByTestId('record-hash').textContent()).toBe(stored.recordHash);
+    await editorPage.getByRole('tab', { name: 'History' }).click();
+    const history = editorPage.getByRole('list', { name: 'Project history, newest first' });
+    await history.getByText(/^Approved “Lambert conformal conic” in round 1/).waitFor();
+    await history.getByText(/^Sent round 1/).waitFor();
     expect(reviewerBrowser.problems).toEqual([]);
     expect(editorBrowser.problems).toEqual([]);
   });
