@@ -1,12 +1,16 @@
 import { parentPort } from 'node:worker_threads';
 import type { ResolvedDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, createFactorEvaluator, type FactorEvaluator } from '../../shared/engine/evaluator';
+import type { PreparedRegion } from '../../shared/engine/region/prepare';
+import type { RegionSamples } from '../../shared/engine/sampling';
+import { scoreCandidate } from '../../shared/engine/scorecard';
 import { createFactorLineProcessor, type FactorLinesResult } from './factor-lines';
 
 /** Messages the pool sends to a worker. */
 export type WorkerRequest =
   | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
-  | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string };
+  | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string }
+  | { id: number; kind: 'score'; resolved: ResolvedDefinition; samples: RegionSamples; region?: PreparedRegion };
 
 const evaluators = new Map<string, FactorEvaluator>();
 const lineProcessors = new Map<string, (text: string) => FactorLinesResult>();
@@ -19,6 +23,10 @@ function handle(msg: WorkerRequest): void {
       if (!proc) lineProcessors.set(key, (proc = createFactorLineProcessor(msg.resolved)));
       const result = proc(msg.text);
       parentPort!.postMessage({ id: msg.id, ok: true, result }, [result.out.buffer as ArrayBuffer]);
+      return;
+    }
+    if (msg.kind === 'score') {
+      parentPort!.postMessage({ id: msg.id, ok: true, result: scoreCandidate(msg.resolved, msg.samples, msg.region) });
       return;
     }
     let ev = evaluators.get(key);

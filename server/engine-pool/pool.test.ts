@@ -2,6 +2,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { resolveDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, createFactorEvaluator } from '../../shared/engine/evaluator';
+import { prepareRegion } from '../../shared/engine/region/prepare';
+import { sampleRegion } from '../../shared/engine/sampling';
+import { scoreCandidate } from '../../shared/engine/scorecard';
 import { FactorPool } from './pool';
 
 let pool: FactorPool;
@@ -23,6 +26,12 @@ describe('FactorPool', () => {
       expect(Array.from(got.s)).toEqual(Array.from(expected.s));
       expect(Array.from(got.omegaDeg)).toEqual(Array.from(expected.omegaDeg));
     }
+  });
+  it('scores a candidate in a worker exactly as in process', async () => {
+    const region = prepareRegion({ type: 'Polygon', coordinates: [[[-10, 35], [30, 35], [30, 60], [-10, 60], [-10, 35]]] });
+    const samples = sampleRegion(region, { count: 3000, seed: 2, pairs: 300 });
+    const r = resolveDefinition('+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10');
+    expect(await pool.score(r, samples, region)).toEqual(scoreCandidate(r, samples, region));
   });
   it('processes text lines and reports bad ones with their line numbers', async () => {
     const r = await pool.factorLines(resolveDefinition('+proj=merc +R=1'), '10 0\nnot a point\n0 90\n');

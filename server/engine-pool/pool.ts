@@ -2,6 +2,9 @@ import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import type { ResolvedDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, type FactorArrays } from '../../shared/engine/evaluator';
+import type { PreparedRegion } from '../../shared/engine/region/prepare';
+import type { RegionSamples } from '../../shared/engine/sampling';
+import type { CandidateMetrics } from '../../shared/engine/scorecard';
 import type { FactorLinesResult } from './factor-lines';
 import type { WorkerRequest } from './factors-worker';
 
@@ -92,6 +95,11 @@ export class FactorPool {
       offset += r.h.length;
     }
     return out;
+  }
+
+  /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
+  score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
+    return this.send({ kind: 'score', resolved, samples, region });
   }
 
   /** Terminates the workers. */
