@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ReviewRound, SignOff } from '../../server/entities/index.js';
+import { Invitation, MapProject, ProjectAccess, ReviewRecipient, ReviewRound, SignOff } from '../../server/entities/index.js';
 import { engineScore, seedAuditedProject, type AuditedProject } from '../support/signoff-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { caughtMail, Client, createTestApp, mailTo } from '../support/test-app.js';
@@ -67,6 +67,8 @@ describe('sign-off round trip', () => {
     expect(list.body.rounds[0].shortlist.map((c: { candidateId: number }) => c.candidateId)).toEqual(p.candidateIds.slice(0, 2));
     expect(list.body.rounds[0].shortlist[0].metrics).toEqual(p.metricsById.get(p.candidateIds[0]));
     expect((await reviewer.get(`/api/projects/${p.projectId}`)).status).toBe(200);
+    // Reviewers take no staff seat: the studio's three seats stay as they were.
+    expect((await s.admin.get('/api/people')).body.seats).toEqual({ used: 3, total: 3 });
     expect((await reviewer.get('/api/review/requests')).body.requests.map((r: { roundId: number }) => r.roundId)).toEqual([round.id]);
 
     // Wrong signature and an off-list candidate are refused, with nothing stored.
@@ -222,6 +224,38 @@ describe('who may do what', () => {
 
     await sendRound(p, [s.users.client.email]);
     expect((await post({})).status).toBe(409);
+  });
+});
+
+describe('all or nothing', () => {
+  it('a failed e-mail leaves no round, recipient, invitation or access behind', async () => {
+    const p = await seedAuditedProject(t.deps, s, { title: 'Mail outage' });
+    const email = `unlucky.${tag()}@client.example.test`;
+    const real = t.deps.mailer.send;
+    t.deps.mailer.send = async () => Promise.reject(new Error('SMTP is down'));
+    try {
+      const res = await s.editor.post(`/api/projects/${p.projectId}/rounds`, { auditId: p.auditId, candidateIds: [p.candidateIds[0]], recommendation: RECOMMENDATION, reviewerEmails: [s.users.client.email, email] });
+      expect(res.status).toBe(502);
+      expect(res.body.error.message).toMatch(/could not be sent/);
+    } finally {
+      t.deps.mailer.send = real;
+    }
+    const ds = t.deps.dataSource;
+    expect(await ds.getRepository(ReviewRound).countBy({ projectId: p.projectId })).toBe(0);
+    expect(await ds.getRepository(ReviewRecipient).countBy({ projectId: p.projectId })).toBe(0);
+    expect(await ds.getRepository(ProjectAccess).countBy({ projectId: p.projectId })).toBe(0);
+    expect(await ds.getRepository(Invitation).countBy({ email })).toBe(0);
+    expect((await ds.getRepository(MapProject).findOneByOrFail({ id: p.projectId })).status).toBe('draft');
+  });
+
+  it('two approvals at the same moment give one record and one 409', async () => {
+    const p = await seedAuditedProject(t.deps, s, { title: 'Race' });
+    const round = await sendRound(p, [s.users.client.email]);
+    const [a, b] = await Promise.all(
+      p.candidateIds.slice(0, 2).map((candidateId) => s.client.post(`/api/rounds/${round.id}/approve`, { candidateId, signature: s.users.client.name })),
+    );
+    expect([a.status, b.status].sort()).toEqual([201, 409]);
+    expect(await t.deps.dataSource.getRepository(SignOff).countBy({ roundId: round.id })).toBe(1);
   });
 });
 
