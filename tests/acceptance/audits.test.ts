@@ -3,9 +3,11 @@ import { resolveDefinition } from '../../shared/engine/definition.js';
 import { prepareRegion } from '../../shared/engine/region/prepare.js';
 import { sampleRegion } from '../../shared/engine/sampling.js';
 import { scoreCandidate } from '../../shared/engine/scorecard.js';
-import { Audit, ProjectAccess, Scorecard } from '../../server/entities/index.js';
+import { Audit, MapProject, ProjectAccess, Scorecard } from '../../server/entities/index.js';
 import { seedDemoAudits } from '../../server/jobs/demo-audits.js';
-import { startAuditJobs, stopAuditJobs } from '../../server/jobs/runner.js';
+import { recoverAudits } from '../../server/jobs/recover.js';
+import { createAuditRow } from '../../server/services/audits.service.js';
+import { auditJobs, startAuditJobs, stopAuditJobs } from '../../server/jobs/runner.js';
 import { createAuditProject, waitForAudit, type AuditProject } from '../support/audit-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { createTestApp } from '../support/test-app.js';
@@ -165,5 +167,22 @@ describe('audits as background jobs', () => {
     expect(audits.map((x) => x.status)).toEqual(['done']);
     expect(await t.deps.dataSource.getRepository(Scorecard).countBy({ auditId: audits[0].id })).toBe(2);
     expect(await t.deps.dataSource.getRepository(Audit).countBy({ projectId: b.projectId })).toBe(0);
+  });
+
+  it('enqueues again, once, an audit whose job was lost (e.g. with Redis’s data)', async () => {
+    const project = await t.deps.dataSource.getRepository(MapProject).findOneByOrFail({ id: p.projectId });
+    // A queued audit that never reached the queue.
+    const lost = await createAuditRow(t.deps.dataSource, project, s.users.cartographer.userId, { samples: 1000, seed: 99 });
+    const queue = auditJobs(t.deps).queue;
+    expect(await queue.getJob(`audit-${lost.id}`)).toBeUndefined();
+    const [first, second] = await Promise.all([
+      recoverAudits(t.deps.dataSource, queue, t.deps.logger),
+      recoverAudits(t.deps.dataSource, queue, t.deps.logger),
+    ]);
+    expect(first + second).toBeGreaterThanOrEqual(1);
+    const { audit } = await waitForAudit((u) => s.cartographer.get(u), lost.id);
+    expect(audit.status).toBe('done');
+    expect(await t.deps.dataSource.getRepository(Scorecard).countBy({ auditId: lost.id })).toBe(DEFS.length);
+    expect(await recoverAudits(t.deps.dataSource, queue, t.deps.logger)).toBe(0);
   });
 });
