@@ -1,5 +1,6 @@
 import type { JacobianRad } from './jacobian-numeric';
 import type { Proj4Projection } from './proj4-object';
+import { aeqdJacobian } from './jacobian-aeqd';
 import { laeaJacobian } from './jacobian-laea';
 import { stereJacobian } from './jacobian-stere';
 import { tmercJacobian } from './jacobian-tmerc';
@@ -119,6 +120,8 @@ export function analyticJacobian(family: string, p: Proj4Projection, numeric: ()
       return laeaJacobian(p, numeric());
     case 'stere':
       return stereJacobian(p);
+    case 'aeqd':
+      return aeqdJacobian(p);
     case 'tmerc': {
       if (p.es !== 0) return tmercJacobian(p);
       const ak = a * (p.k0 ?? 1);
