@@ -34,6 +34,9 @@ export function HeatmapPanel({ auditId, candidateId, label, field, route }: { au
       </div>
       {overlay.isError && <Alert tone="error">{overlay.error.message}</Alert>}
       {legend.data && <LegendBar legend={legend.data} />}
+      <a className="text-xs text-mulberry-700 underline" href={heatmapUrl(auditId, candidateId, field, 2048)} download={`${label}-${field}.png`}>
+        Download this heatmap (PNG, 2048 px)
+      </a>
     </figure>
   );
 }
