@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { seedDemoSubscription } from '../billing/demo-seed.js';
 import { seedDemoAudits } from '../jobs/demo-audits.js';
+import { seedDemoReview } from '../signoff/demo-review.js';
 import { seedDemoProjects } from './demo-projects.js';
 import { seedDemoStudio, type DemoContext } from './demo-studio.js';
 
@@ -17,8 +18,10 @@ export type DemoSeeder = (ctx: DemoContext) => Promise<void>;
 export const extraDemoSeeders: DemoSeeder[] = [
   seedDemoSubscription,
   seedDemoProjects,
-  // Keep last: it computes an audit for each demo project the seeders above created.
+  // Keep after the project seeders: it computes an audit for each demo project they created.
   seedDemoAudits,
+  // Needs the audits above: sends the first finished one's best candidates to the demo reviewer.
+  seedDemoReview,
 ];
 
 /** Seeds the whole demo: the studio, its people, then every extra seeder. */

@@ -13,8 +13,8 @@ import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
 import { lockStudio } from './seats.service.js';
 
-/** The shortlisted scorecards as they are now, in the editor's order; every id must be a done result of the audit. */
-async function snapshotShortlist(db: DataSource['manager'], audit: Audit, candidateIds: number[]): Promise<ScorecardView[]> {
+/** The shortlisted scorecards as they are now, in the given order; every id must be a done result of the audit. */
+export async function snapshotShortlist(db: DataSource['manager'], audit: Audit, candidateIds: number[]): Promise<ScorecardView[]> {
   const cards = await db.getRepository(Scorecard).findBy({ auditId: audit.id, candidateId: In(candidateIds) });
   const candidates = await db.getRepository(Candidate).findBy({ id: In(candidateIds), projectId: audit.projectId });
   const missing = candidateIds.filter((id) => !cards.some((c) => c.candidateId === id) || !candidates.some((c) => c.id === id));

@@ -1,6 +1,7 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Invitation, MapProject, ProjectAccess, ReviewRecipient, ReviewRound, SignOff } from '../../server/entities/index.js';
+import { seedDemoReview } from '../../server/signoff/demo-review.js';
 import { engineScore, seedAuditedProject, type AuditedProject } from '../support/signoff-fixture.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { caughtMail, Client, createTestApp, mailTo } from '../support/test-app.js';
@@ -342,7 +343,24 @@ describe('verify re-runs the audit from the stored inputs', () => {
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ recordIntact: true, metricsMatch: false, hashMatches: false });
     expect(res.body.recomputedHash).not.toBe(approved.body.recordHash);
-    expect(res.body.differences.map((d: { metric: string }) => d.metric)).toContain('arealScale.maxMinRatio');
+    expect(res.body.differences.map((d: { metric: string }) => d.metric)).toContain('arealScale.ratio');
     expect((await other.editor.post(`/api/signoffs/${approved.body.id}/verify`)).status).toBe(404);
+  });
+});
+
+describe('demo seeding', () => {
+  it('sends the first finished audit’s two best candidates to the reviewer, once', async () => {
+    const demo = await createStudioWithRoles(t);
+    const p = await seedAuditedProject(t.deps, demo, { title: 'Demo-like project' });
+    const ctx = { ds: t.deps.dataSource, studioId: demo.studioId, people: demo.users };
+    await seedDemoReview(ctx);
+    await seedDemoReview(ctx);
+    const rounds = await t.deps.dataSource.getRepository(ReviewRound).findBy({ studioId: demo.studioId });
+    expect(rounds).toHaveLength(1);
+    expect(rounds[0]).toMatchObject({ projectId: p.projectId, status: 'open', roundNumber: 1, requestedById: demo.users.editor.userId });
+    // The fixture's made-up area spread grows with each candidate, so an equal-area map ranks the first two best.
+    expect(rounds[0].candidateIds).toEqual(p.candidateIds.slice(0, 2));
+    const seen = await demo.client.get(`/api/projects/${p.projectId}/rounds`);
+    expect(seen.body.decidableRoundId).toBe(rounds[0].id);
   });
 });

@@ -72,7 +72,7 @@ export type ScoreFn = (input: {
 /** Plausible but made-up metrics, distinct per candidate, for tests that never re-run the engine. */
 const fakeScore: ScoreFn = async ({ candidates }) =>
   new Map(
-    candidates.map((c, i) => [c.id, { metrics: { arealScale: { maxMinRatio: 1.01 + i / 100 }, omegaDeg: { mean: i * 0.4, max: i * 0.7 } }, fields: null }]),
+    candidates.map((c, i) => [c.id, { metrics: { arealScale: { ratio: 1.01 + i / 100 }, angularDeformationDeg: { mean: i * 0.4, max: i * 0.7 } }, fields: null }]),
   );
 
 /** Scores with the audit engine itself (the one the background jobs run), as an audit would. */
