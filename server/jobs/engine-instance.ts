@@ -12,6 +12,7 @@ import type { SampleFields as StoredFields } from './fields-codec.js';
 /** The engine version recorded with every audit and hashed into its input hash. */
 export { ENGINE_VERSION };
 
+const SAMPLING_SHARE = 0.1;
 /** Samples per block sent to the worker threads; progress is reported after each block. */
 const BLOCK = 25_000;
 /**
@@ -35,6 +36,8 @@ export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress
   const region = prepareRegion(input.geometry);
   const samples = sampleRegion(region, { count: input.samples, seed: input.seed });
   const tSample = performance.now() - t0;
+  // Sampling is reported as the first tenth of the work, the candidates' factors as the rest.
+  await onProgress(SAMPLING_SHARE);
   const n = samples.count;
   const total = input.candidates.length * n;
   const out: CandidateResult[] = [];
@@ -45,7 +48,7 @@ export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress
       const end = Math.min(n, start + BLOCK);
       const r = await pool.factors(resolved, samples.lonDeg.subarray(start, end), samples.latDeg.subarray(start, end));
       for (const key of FACTOR_KEYS) factors[key].set(r[key], start);
-      await onProgress((ci * n + end) / total);
+      await onProgress(SAMPLING_SHARE + (1 - SAMPLING_SHARE) * ((ci * n + end) / total));
     }
     if (!factors.s.some((v) => v > 0)) {
       throw new Error(`${cand.label} is undefined over the whole region, so it cannot map it; remove it from the audit or change its centre.`);
