@@ -16,6 +16,30 @@ import { apiRoutes } from './routes/index.js';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 
+interface TouchingStore {
+  touch(sid: string, session: unknown, cb?: (err?: unknown) => void): void;
+}
+
+/** At most one expiry refresh per session per minute (the expiry is 12 hours). */
+const TOUCH_INTERVAL_MS = 60_000;
+
+/**
+ * Rolling sessions make express-session refresh the stored expiry on every request: an UPDATE of
+ * the sessions table behind every GET. Refreshing it at most once a minute per session keeps the
+ * 12-hour rolling expiry (to within a minute) at a fraction of the writes.
+ */
+function throttleTouches(store: TouchingStore): void {
+  const touch = store.touch.bind(store);
+  const last = new Map<string, number>();
+  store.touch = (sid, session, cb) => {
+    const now = Date.now();
+    if (now - (last.get(sid) ?? 0) < TOUCH_INTERVAL_MS) return void cb?.();
+    if (last.size > 50_000) last.clear();
+    last.set(sid, now);
+    touch(sid, session, cb);
+  };
+}
+
 /** Builds the Express app; never listens (server/index.ts does, tests use supertest). */
 export function createApp(deps: AppDeps): Express {
   const { config } = deps;
@@ -58,6 +82,7 @@ export function createApp(deps: AppDeps): Express {
     connectionLimit: 10,
   } as never);
   deps.services.sessionStore = store;
+  throttleTouches(store as unknown as TouchingStore);
 
   const api = express.Router();
   // Raw bodies for signed webhooks are read by their own route; everything else is JSON.

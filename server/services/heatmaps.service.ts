@@ -38,11 +38,22 @@ function engineBestScale(metrics: Record<string, unknown>): number | undefined {
   return typeof v === 'number' && v > 0 ? v : undefined;
 }
 
-export async function loadCandidateContext(db: DataSource, actor: Actor, auditId: number, candidateId: number): Promise<CandidateContext> {
+/** The audit and one of its candidates, checked (tenancy, membership, finished) without loading any field data. */
+async function auditCandidate(db: DataSource, actor: Actor, auditId: number, candidateId: number) {
   const { audit, project } = await loadAuditFor(db, actor, auditId);
   const candidate = readSettings(audit.settings).candidates.find((c) => c.id === candidateId);
   if (!candidate) throw notFound('That candidate in this audit');
   if (audit.status !== 'done') throw conflict('This audit has not finished yet; its pictures and exports appear when it is done.');
+  return { audit, project, candidate };
+}
+
+export async function loadCandidateContext(db: DataSource, actor: Actor, auditId: number, candidateId: number): Promise<CandidateContext> {
+  return contextOf(db, actor, await auditCandidate(db, actor, auditId, candidateId));
+}
+
+async function contextOf(db: DataSource, actor: Actor, head: Awaited<ReturnType<typeof auditCandidate>>): Promise<CandidateContext> {
+  const { audit, project, candidate } = head;
+  const candidateId = candidate.id;
   const [card, region] = await Promise.all([
     db.getRepository(Scorecard).findOneBy({ auditId: audit.id, candidateId, studioId: actor.studioId }),
     db.getRepository(Region).findOneBy({ id: audit.regionId, studioId: actor.studioId }),
@@ -88,13 +99,16 @@ export async function heatmapPng(
   field: HeatmapField,
   sizePx: number,
 ): Promise<HeatmapResponse> {
-  const ctx = await loadCandidateContext(db, actor, auditId, candidateId);
+  // The cache key needs only the audit row: a cached picture is served without loading the
+  // region and decoding the sample fields (the hot path under load).
+  const head = await auditCandidate(db, actor, auditId, candidateId);
   const key = createHash('sha256')
-    .update(JSON.stringify([RENDER_VERSION, ctx.audit.inputHash, ctx.candidate.definition, field, sizePx]))
+    .update(JSON.stringify([RENDER_VERSION, head.audit.inputHash, head.candidate.definition, field, sizePx]))
     .digest('hex')
     .slice(0, 24);
   const name = `${candidateId}-${field}-${sizePx}-${key}.png`;
-  const { png, cached } = await cacheFor(dataDir).getOrRender(ctx.audit.id, name, async () => {
+  const { png, cached } = await cacheFor(dataDir).getOrRender(head.audit.id, name, async () => {
+    const ctx = await contextOf(db, actor, head);
     const out = await renderHeatmap(ctx.geometry, ctx.projection, fieldSpec(field, ctx.stats), sizePx);
     return out.png;
   });
