@@ -1,10 +1,10 @@
-import { resolveDefinition } from '../../shared/engine/definition';
+import { resolveDefinitionWith } from '../../shared/engine/definition-core';
 import { createFactorLineProcessor, type FactorLinesResult } from '../engine-pool/factor-lines';
 import { FactorPool } from '../engine-pool/pool';
 import { intOption, optionValue, parseArgs, UsageError } from './args';
 import { writeAll, type CliIo } from './io';
 
-const BATCH_CHARS = 1 << 20;
+const BATCH_CHARS = 1 << 18;
 const MAX_IN_FLIGHT = 6;
 
 /**
@@ -20,7 +20,9 @@ export async function factorsCommand(argv: string[], io: CliIo): Promise<number>
   if (!definition) throw new UsageError('factors needs --proj <PROJ string | EPSG:n | WKT>');
   if ((args.options.get('proj') ?? []).length > 1) throw new UsageError('factors takes a single --proj');
   const threads = intOption(args, 'threads', 2, 1, 64);
-  const resolved = resolveDefinition(definition);
+  // The 8 MB EPSG index is loaded only when an EPSG code asks for it.
+  const lookup = /^\s*epsg:/i.test(definition) ? (await import('../../shared/engine/epsg')).lookupEpsg : undefined;
+  const resolved = resolveDefinitionWith(definition, lookup);
   const local = createFactorLineProcessor(resolved);
 
   let pool: FactorPool | undefined;

@@ -30,7 +30,7 @@ export function createFactorLineProcessor(resolved: ResolvedDefinition): (text: 
   const evaluator = createFactorEvaluator(resolved);
   const f = new Float64Array(8);
   return (text) => {
-    let buf = new Uint8Array(Math.max(4096, text.length * 4));
+    let buf = new Uint8Array(4096 + text.length * 6);
     let o = 0;
     const errors: LineError[] = [];
     let lineNo = 0;

@@ -1,6 +1,6 @@
 import { RAD_TO_DEG } from './constants';
 import type { Ellipsoid } from './ellipsoid';
-import { lookupEpsg } from './epsg';
+import type { EpsgEntry } from './epsg';
 import { FAMILIES, familyFromNames, type FamilyInfo } from './families';
 import { createProj4Projection, type Proj4Projection } from './proj4-object';
 import { formatProjString, normaliseProjParams, parseProjString } from './proj-string';
@@ -83,12 +83,15 @@ function canonicalProjString(family: FamilyInfo, p: Proj4Projection, params: Pro
   return parts.join(' ');
 }
 
+/** Finds an EPSG entry by code (the bundled index: see epsg.ts). */
+export type EpsgLookup = (code: number) => EpsgEntry | undefined;
+
 /**
- * Resolves a PROJ string, "EPSG:n" (from the bundled index, no network) or WKT to the engine's
- * description of a projection. Throws an Error that names what is wrong.
- * Example: resolveDefinition('EPSG:5070').family.id === 'aea'.
+ * resolveDefinition with the EPSG index passed in, so that callers which never see EPSG codes
+ * (workers, the factors command with a PROJ string) need not load the 8 MB index.
+ * Example: resolveDefinitionWith('+proj=merc').family.id === 'merc'.
  */
-export function resolveDefinition(definition: string): ResolvedDefinition {
+export function resolveDefinitionWith(definition: string, lookupEpsg?: EpsgLookup): ResolvedDefinition {
   const input = String(definition ?? '').trim();
   if (!input) throw new Error('empty definition: expected a PROJ string (+proj=…), EPSG:n or WKT');
   const kind = classify(input);
@@ -97,6 +100,7 @@ export function resolveDefinition(definition: string): ResolvedDefinition {
   let label: string | undefined;
   if (kind === 'epsg') {
     const code = Number(input.replace(/^epsg:\s*/i, ''));
+    if (!lookupEpsg) throw new Error(`EPSG:${code}: no EPSG index was given to look it up in`);
     const entry = lookupEpsg(code);
     if (!entry) throw new Error(`unknown EPSG code ${code}`);
     if (!entry.kind.includes('PROJCRS')) {

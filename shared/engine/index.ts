@@ -27,7 +27,8 @@
  *   const metrics = scoreCandidate(resolveDefinition('EPSG:3035'), samples, region);
  */
 export { ENGINE_VERSION } from './version';
-export { resolveDefinition, type ResolvedDefinition, type ProjectionParams, type DefinitionKind } from './definition';
+export { resolveDefinition, resolveDefinitionWith, type ResolvedDefinition, type ProjectionParams, type DefinitionKind, type EpsgLookup } from './definition';
+export { lookupEpsg, type EpsgEntry } from './epsg';
 export { FAMILIES, type FamilyInfo } from './families';
 export type { Ellipsoid } from './ellipsoid';
 export { factorsAt, type PointFactors, type UndefinedFactors } from './factors';

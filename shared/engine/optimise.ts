@@ -1,4 +1,4 @@
-import { resolveDefinition } from './definition';
+import { resolveDefinitionWith as resolveDefinition } from './definition-core';
 import { computeSampleFields } from './fields';
 import type { RegionInput } from './region/geojson';
 import { prepareRegion, type PreparedRegion } from './region/prepare';
