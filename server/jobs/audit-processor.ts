@@ -1,5 +1,5 @@
 import type { Logger } from 'pino';
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import { Audit, Region, Scorecard } from '../entities/index.js';
 import type { AuditEngine } from './audit-engine.js';
 import { readSettings } from './audit-settings.js';
@@ -31,14 +31,19 @@ export async function processAudit(
   ctx: ProcessorContext,
   auditId: number,
   onProgress: (fraction: number) => Promise<void> | void = () => {},
-): Promise<'done' | 'already-done' | 'missing'> {
+): Promise<'done' | 'already-done' | 'not-runnable' | 'missing'> {
   const db = ctx.dataSource;
   const audits = db.getRepository(Audit);
   const audit = await audits.findOneBy({ id: auditId });
   if (!audit) return 'missing';
   if (audit.status === 'done') return 'already-done';
   const started = Date.now();
-  await audits.update({ id: auditId }, { status: 'running', progress: 0, error: null, startedAt: audit.startedAt ?? new Date() });
+  // Conditional, so a run that lost the race to another worker never reopens a finished audit.
+  const claimed = await audits.update(
+    { id: auditId, status: In(['queued', 'running']) },
+    { status: 'running', progress: 0, error: null, startedAt: audit.startedAt ?? new Date() },
+  );
+  if (!claimed.affected) return (await audits.existsBy({ id: auditId, status: 'done' })) ? 'already-done' : 'not-runnable';
 
   try {
     const region = await db.getRepository(Region).findOneBy({ id: audit.regionId, studioId: audit.studioId });
@@ -86,7 +91,8 @@ export async function processAudit(
     return finished ? 'done' : 'already-done';
   } catch (err) {
     ctx.logger.warn({ err, auditId }, 'audit failed');
-    await audits.update({ id: auditId }, { status: 'failed', error: failureMessage(err), finishedAt: new Date() });
+    // Never over a finished audit: another worker may have completed it while this run failed.
+    await audits.update({ id: auditId, status: In(['queued', 'running']) }, { status: 'failed', error: failureMessage(err), finishedAt: new Date() });
     // The history line must never hide the failure itself.
     await recordActivity(db, {
       projectId: audit.projectId, studioId: audit.studioId, actor: null, kind: 'audit.failed',
