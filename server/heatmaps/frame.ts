@@ -37,10 +37,12 @@ export function projectRings(rings: number[][][], forward: ForwardDeg): FlatRing
       const [lon1, lat1] = ring[i];
       if (i > 0) {
         const [lon0, lat0] = ring[i - 1];
-        const steps = Math.ceil(Math.max(Math.abs(lon1 - lon0), Math.abs(lat1 - lat0)) / MAX_EDGE_DEG);
+        // An edge between ±180° (a ring drawn across the antimeridian) goes the short way round.
+        const dLon = lon1 - lon0 - 360 * Math.round((lon1 - lon0) / 360);
+        const steps = Math.ceil(Math.max(Math.abs(dLon), Math.abs(lat1 - lat0)) / MAX_EDGE_DEG);
         for (let s = 1; s < steps; s++) {
           const f = s / steps;
-          const p = forward(lon0 + f * (lon1 - lon0), lat0 + f * (lat1 - lat0));
+          const p = forward(lon0 + f * dLon, lat0 + f * (lat1 - lat0));
           if (p) pts.push(p[0], p[1]);
         }
       }
