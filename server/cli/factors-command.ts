@@ -26,7 +26,11 @@ export async function factorsCommand(argv: string[], io: CliIo): Promise<number>
   const local = createFactorLineProcessor(resolved);
 
   let pool: FactorPool | undefined;
-  const poolStart = threads > 1 ? FactorPool.start(threads).then((p) => (pool = p)).catch(() => undefined) : undefined;
+  // The pool starts with the first full batch: small inputs never pay for booting workers.
+  let poolStart: Promise<unknown> | undefined;
+  const startPool = () => {
+    if (threads > 1 && !poolStart) poolStart = FactorPool.start(threads).then((p) => (pool = p)).catch(() => undefined);
+  };
   const inFlight: Promise<FactorLinesResult>[] = [];
   let lineBase = 0;
   let errorCount = 0;
@@ -50,6 +54,7 @@ export async function factorsCommand(argv: string[], io: CliIo): Promise<number>
       if (carry.length < BATCH_CHARS) continue;
       const cut = carry.lastIndexOf('\n');
       if (cut < 0) continue;
+      startPool();
       submit(carry.slice(0, cut + 1));
       carry = carry.slice(cut + 1);
       while (inFlight.length >= MAX_IN_FLIGHT) await drainOne();
@@ -57,8 +62,8 @@ export async function factorsCommand(argv: string[], io: CliIo): Promise<number>
     if (carry) submit(carry);
     while (inFlight.length) await drainOne();
   } finally {
-    const p = pool ?? (poolStart ? await poolStart : undefined);
-    await p?.close();
+    if (poolStart) await poolStart;
+    await pool?.close();
   }
   if (errorCount) io.stderr.write(`warpmeter factors: ${errorCount} malformed line(s)\n`);
   return errorCount ? 1 : 0;

@@ -46,7 +46,7 @@ export interface FactorEvaluator {
 /**
  * Compiles a resolved definition for repeated evaluation. Derivatives are analytic for Mercator,
  * transverse Mercator (and UTM), Lambert azimuthal equal-area, stereographic, azimuthal
- * equidistant on the ellipsoid (from GeographicLib geodesics), cylindrical equal-area,
+ * equidistant on the ellipsoid (from GeographicLib geodesics), Equal Earth, cylindrical equal-area,
  * equirectangular, Lambert conformal conic, Albers and Mollweide, and central
  * differences of proj4's forward (step DERIVATIVE_STEP_RAD) for the others; M and N come from
  * the surface the projection really uses (resolved.factorEllipsoid).

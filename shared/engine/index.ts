@@ -4,6 +4,7 @@
  *
  * Definitions
  *   resolveDefinition(def: string): ResolvedDefinition        PROJ string | "EPSG:n" | WKT → family, ellipsoid, params, label
+ *   resolveDefinitionWith(def, lookupEpsg?)                   the same without loading the 8 MB EPSG index
  * Factors (Tissot indicatrix, Snyder 1987 eqs. 4-9 to 4-12)
  *   factorsAt(resolved, lonDeg, latDeg): PointFactors | { defined: false }
  *   createFactorEvaluator(resolved): FactorEvaluator          compiled; factorsBatchDeg(lon[], lat[], out) for many points

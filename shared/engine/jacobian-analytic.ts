@@ -22,6 +22,10 @@ import { tmercJacobian } from './jacobian-tmerc';
  * Mollweide (sphere): x = (2√2/π) R Δλ cos θ, y = √2 R sin θ, 2θ + sin 2θ = π sin φ (eqs. 31-1 to
  * 31-3), dθ/dφ = π cos φ/(4 cos² θ); θ solved here to rounding level (proj4's and PROJ's own
  * iterations stop early near the poles, where s then drifts from 1 by up to 1e-6).
+ * Equal Earth (Šavrič, Patterson & Jenny 2018, Int. J. Geogr. Inf. Sci. 33(3), eqs. 1–2, with the
+ * authalic latitude β and radius R_q on the ellipsoid as PROJ does): sin θ = (√3/2) sin β,
+ * x = R_q λ cos θ/((√3/2) P′(θ)), y = R_q P(θ), P = A₁θ + A₂θ³ + A₃θ⁷ + A₄θ⁹;
+ * dθ/dφ = (√3/2) q′/(q_p cos θ).
  * Example: for +proj=merc +R=1, ∂y/∂φ at φ = 60° is sec 60° = 2.
  */
 export function analyticJacobian(family: string, p: Proj4Projection, numeric: () => JacobianRad): JacobianRad | undefined {
@@ -152,6 +156,37 @@ export function analyticJacobian(family: string, p: Proj4Projection, numeric: ()
         out[2] = -a * cx * dl * Math.sin(theta) * dTheta;
         out[3] = a * Math.SQRT2 * cosT * dTheta;
         return cosT > 0;
+      };
+    }
+    case 'eqearth': {
+      const [A1, A2, A3, A4] = [1.340264, -0.081106, 0.000893, 0.003796];
+      const m = Math.sqrt(3) / 2;
+      const es = p.es;
+      const e = Math.sqrt(es);
+      const qp = es > 0 ? (1 - es) * (1 / (1 - es) - (0.5 / e) * Math.log((1 - e) / (1 + e))) : 2;
+      const r = a * Math.sqrt(0.5 * qp);
+      return (lam, phi, out) => {
+        const sinPhi = Math.sin(phi);
+        let q: number;
+        if (es > 0) {
+          const esp = e * sinPhi;
+          q = (1 - es) * (sinPhi / (1 - esp * esp) - (0.5 / e) * Math.log((1 - esp) / (1 + esp)));
+        } else q = 2 * sinPhi;
+        const w = 1 - es * sinPhi * sinPhi;
+        const dq = (2 * (1 - es) * Math.cos(phi)) / (w * w);
+        const th = Math.asin(m * Math.min(1, Math.max(-1, q / qp)));
+        const t2 = th * th;
+        const t6 = t2 * t2 * t2;
+        const d1 = A1 + 3 * A2 * t2 + t6 * (7 * A3 + 9 * A4 * t2); // P′(θ)
+        const d2 = th * (6 * A2 + t2 * t2 * (42 * A3 + 72 * A4 * t2)); // P″(θ)
+        const cosT = Math.cos(th);
+        const thPhi = (m * dq) / (qp * cosT);
+        const dl = wrap(lam - lon0);
+        out[0] = (r * cosT) / (m * d1);
+        out[1] = 0;
+        out[2] = ((r * dl) / m) * ((-Math.sin(th) * d1 - cosT * d2) / (d1 * d1)) * thPhi;
+        out[3] = r * d1 * thPhi;
+        return true;
       };
     }
     default:

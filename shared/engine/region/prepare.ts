@@ -60,8 +60,8 @@ function shoelace(ring: Position[]): number {
 /**
  * Reads a region into rings on a common longitude frame. An edge is the straight line in
  * lon/lat between its ends (RFC 7946 §3.1.1) taken the short way round in longitude (a step of
- * exactly 180° goes the way it is written), so rings
- * that cross the antimeridian unsplit, or split into parts at ±180°, come out whole. A ring whose
+ * exactly 180° goes the way it is written; a box from −180° to 180° stays a box), so rings that
+ * cross the antimeridian unsplit, or split into parts at ±180°, come out whole. A ring whose
  * longitude turns through 360° encircles a pole; it is closed through the pole on the side of the
  * smaller area, whatever its winding. Inside-ness is even–odd over all rings, so a wrongly wound
  * ring never turns into the rest of the world.
