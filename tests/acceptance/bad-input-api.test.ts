@@ -2,7 +2,9 @@ import fc from 'fast-check';
 import type { ZodType } from 'zod';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { RouteSpec } from '../../server/http/route-table.js';
-import { stopAuditJobs } from '../../server/jobs/runner.js';
+import { In } from 'typeorm';
+import { Audit } from '../../server/entities/index.js';
+import { auditJobs, stopAuditJobs } from '../../server/jobs/runner.js';
 import { apiRoutes } from '../../server/routes/index.js';
 import { heatmapQuerySchema, routeQuerySchema, startAuditSchema } from '../../shared/api/audits.schema.js';
 import { acceptInviteSchema, resetPasswordSchema, resetRequestSchema, signInSchema, signUpSchema } from '../../shared/api/auth.schema.js';
@@ -57,7 +59,12 @@ let specs: RouteSpec[];
 let requests = 0;
 const statusCounts = new Map<number, number>();
 
+// Audits the fuzz starts go to a queue of this file's own, and are closed in afterAll, so no
+// other test's worker (which re-enqueues every unfinished audit of the database) ever runs them.
+const basePrefix = process.env.WARPMETER_QUEUE_PREFIX;
+
 beforeAll(async () => {
+  process.env.WARPMETER_QUEUE_PREFIX = `${basePrefix}-fuzz-${Date.now().toString(36)}`;
   t = await createTestApp();
   s = await createStudioWithRoles(t, { seatCount: 6 });
   const p = await seedAuditedProject(t.deps, s);
@@ -79,8 +86,13 @@ beforeAll(async () => {
 }, 120_000);
 
 afterAll(async () => {
+  await t.deps.dataSource
+    .getRepository(Audit)
+    .update({ studioId: s.studioId, status: In(['queued', 'running']) }, { status: 'failed', error: 'Started by the bad-input test; never run.' });
+  await auditJobs(t.deps).queue.obliterate({ force: true }).catch(() => {});
   await stopAuditJobs(t.deps);
   await t.close();
+  process.env.WARPMETER_QUEUE_PREFIX = basePrefix;
 });
 
 function callerFor(spec: RouteSpec): Client | Promise<Client> {

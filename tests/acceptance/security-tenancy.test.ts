@@ -122,7 +122,7 @@ beforeAll(async () => {
   for (let i = 0; ; i++) {
     const res = await a.editor.get(`/api/audits/${auditId}`);
     if (res.body.status === 'done') break;
-    if (res.body.status === 'failed' || i > 600) throw new Error(`A's audit did not finish: ${JSON.stringify(res.body)}`);
+    if (res.body.status === 'failed' || i > 1500) throw new Error(`A's audit did not finish: ${JSON.stringify(res.body)}`);
     await new Promise((r) => setTimeout(r, 100));
   }
   const round1 = await a.editor.post(`/api/projects/${p1.projectId}/rounds`, {

@@ -36,10 +36,12 @@ export interface Proc {
 }
 
 /** Starts `node --import tsx <script>` in its own process group with `env` added to ours. */
-export function startNodeProcess(script: string, env: Record<string, string>, logFile: string): Proc {
+export function startNodeProcess(script: string, env: Record<string, string>, logFile: string, nodeArgs: string[] = [], prefix: string[] = []): Proc {
   fs.mkdirSync(path.dirname(logFile), { recursive: true });
   const out = fs.openSync(logFile, 'a');
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, script)], {
+  // `prefix` runs node under another command, e.g. ['nice', '-n', '10'].
+  const argv = [...prefix, process.execPath, ...nodeArgs, '--import', 'tsx', path.join(ROOT, script)];
+  const child = spawn(argv[0], argv.slice(1), {
     cwd: ROOT,
     env: { ...process.env, ...env },
     stdio: ['ignore', out, out],
@@ -110,18 +112,20 @@ export interface AppProcessOptions {
   port: number;
   env: Record<string, string>;
   logFile: string;
+  /** Extra node flags (e.g. --cpu-prof). */
+  nodeArgs?: string[];
 }
 
 /** The real server process on a loopback port, waited for until /api/health answers 200. */
 export async function startAppProcess(opts: AppProcessOptions): Promise<Proc> {
-  const p = startNodeProcess('server/index.ts', { ...opts.env, PORT: String(opts.port), HOST: '127.0.0.1' }, opts.logFile);
+  const p = startNodeProcess('server/index.ts', { ...opts.env, PORT: String(opts.port), HOST: '127.0.0.1' }, opts.logFile, opts.nodeArgs);
   await waitForHttp(`http://127.0.0.1:${opts.port}/api/health`, p);
   return p;
 }
 
 /** An extra audit worker process (`npm run worker`), waited for until BullMQ says it is ready. */
-export async function startWorkerProcess(env: Record<string, string>, logFile: string): Promise<Proc> {
-  const p = startNodeProcess('server/jobs/worker-main.ts', { LOG_LEVEL: 'info', ...env }, logFile);
+export async function startWorkerProcess(env: Record<string, string>, logFile: string, prefix: string[] = []): Promise<Proc> {
+  const p = startNodeProcess('server/jobs/worker-main.ts', { LOG_LEVEL: 'info', ...env }, logFile, [], prefix);
   await waitForLog(p, 'audit worker ready');
   return p;
 }

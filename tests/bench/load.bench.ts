@@ -1,0 +1,304 @@
+/**
+ * Load on the real server process (`node --import tsx server/index.ts`, NODE_ENV=production,
+ * serving the production client build) on a loopback port, against a throw-away database with
+ * demo-like data: 25 projects, one of them with a finished 8-candidate audit. 50 signed-in
+ * clients, each connection on its own session, drive autocannon at:
+ *   GET /api/projects, GET /api/audits/:id (the scorecard of 8 candidates), and a cached heatmap PNG;
+ * first flat out (requests per second the server sustains), then at a steady 300 requests per
+ * second (latency at the target rate), and the JSON runs once more while two audits run in the
+ * background (started through the API) — in the app's own worker, then in a separate worker
+ * process at nice 10. Each figure is printed beside its target: p99 ≤ 50 ms at ≥ 300 requests/s
+ * for JSON, ≥ 200 cached heatmaps/s. The server's CPU time per request (from /proc) is printed too:
+ * unlike the rates, it does not depend on what else the machine is running, and the machine's
+ * load average closes the table. Nothing here asserts a time. WM_BENCH_LOAD_SECONDS sets the run
+ * length (default 10), WM_BENCH_PROFILE=<dir> writes the server's CPU profile there.
+ */
+import { execFileSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import mysql from 'mysql2/promise';
+import type { BenchRow, BenchSection } from './run';
+
+const ROOT = path.resolve(import.meta.dirname, '../..');
+const CONNECTIONS = 50;
+const SECONDS = Number(process.env.WM_BENCH_LOAD_SECONDS ?? 10);
+const TARGET = { jsonRps: 300, jsonP99Ms: 50, heatmapRps: 200 };
+const DEFINITIONS = [
+  '+proj=tmerc +lat_0=0 +lon_0=-71 +k_0=0.9996 +x_0=500000 +y_0=10000000 +ellps=WGS84',
+  '+proj=utm +zone=19 +south +ellps=WGS84',
+  '+proj=laea +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
+  '+proj=aeqd +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
+  '+proj=lcc +lat_1=-24 +lat_2=-50 +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
+  '+proj=aea +lat_1=-24 +lat_2=-50 +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
+  '+proj=merc +lon_0=-71 +ellps=WGS84',
+  '+proj=stere +lat_0=-37 +lon_0=-71 +k_0=1 +x_0=0 +y_0=0 +ellps=WGS84',
+];
+
+/** A database, queue prefix and data directory of this bench's own. */
+async function loadEnvironment() {
+  execFileSync('bash', [path.join(ROOT, 'server/scripts/services.sh'), 'up'], { stdio: 'inherit', env: { ...process.env, WARPMETER_NO_FAKES: '1' } });
+  const tag = `${Date.now().toString(36)}_${randomBytes(3).toString('hex')}`;
+  const { loadConfig } = await import('../../server/config.js');
+  const { createDataSource } = await import('../../server/data-source.js');
+  const base = loadConfig().db;
+  const dbName = `wm_load_${tag}`;
+  const admin = await mysql.createConnection({ host: base.host, port: base.port, user: base.user, password: base.password });
+  await admin.query(`CREATE DATABASE \`${dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  const ds = createDataSource({ ...base, database: dbName });
+  await ds.initialize();
+  await ds.runMigrations({ transaction: 'each' });
+  await ds.destroy();
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wm-load-'));
+  const env = {
+    WARPMETER_DB_NAME: dbName,
+    WARPMETER_QUEUE_PREFIX: `wmload-${tag}`,
+    WARPMETER_DATA_DIR: path.join(dir, 'files'),
+    LOG_LEVEL: 'info',
+  };
+  Object.assign(process.env, env, { LOG_LEVEL: 'silent' });
+  return {
+    env,
+    dir,
+    async close() {
+      await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
+      await admin.end();
+      fs.rmSync(dir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Demo-like data through the API of an in-process app on the same database: returns ids and logins. */
+async function seed() {
+  const { createTestApp } = await import('../support/test-app.js');
+  const { createStudioWithRoles } = await import('../support/studio-fixture.js');
+  const { createAuditProject, worldCountry } = await import('../support/audit-fixture.js');
+  const { processAudit } = await import('../../server/jobs/audit-processor.js');
+  const { sharedAuditEngine, closeSharedAuditEngine } = await import('../../server/jobs/engine-instance.js');
+  const { stopAuditJobs } = await import('../../server/jobs/runner.js');
+  const t = await createTestApp();
+  try {
+    const s = await createStudioWithRoles(t, { seatCount: 5 });
+    const audited = await createAuditProject(t.deps, s, { title: 'Chile, national atlas', geometry: worldCountry('Chile', '50m'), definitions: DEFINITIONS, purpose: 'equal-area' });
+    const started = await s.cartographer.post(`/api/projects/${audited.projectId}/audits`, { samples: 20_000, seed: 1 });
+    if (started.status !== 202) throw new Error(`audit not started: ${started.status} ${JSON.stringify(started.body)}`);
+    const engine = await sharedAuditEngine();
+    await processAudit({ dataSource: t.deps.dataSource, logger: t.deps.logger, engine }, started.body.id);
+    const purposes = ['equal-area', 'conformal', 'reference', 'equidistant'];
+    for (let i = 0; i < 22; i++) {
+      const res = await s.cartographer.post('/api/projects', { title: `Atlas sheet ${i + 1}`, clientName: `Client ${i % 5}`, purpose: purposes[i % 4], scaleBand: 'country', notes: 'x'.repeat(200) });
+      if (res.status !== 201) throw new Error(`project not created: ${res.status}`);
+    }
+    // Two more projects, ready to audit during the load runs.
+    const spare = [];
+    for (const name of ['Argentina', 'Peru']) {
+      spare.push(await createAuditProject(t.deps, s, { title: `${name}, background audit`, geometry: worldCountry(name, '50m'), definitions: DEFINITIONS }));
+    }
+    await stopAuditJobs(t.deps);
+    await closeSharedAuditEngine();
+    return { users: s.users, auditId: started.body.id as number, candidateId: audited.candidateIds[0], spareProjectIds: spare.map((p) => p.projectId) };
+  } finally {
+    await t.close();
+  }
+}
+
+interface Session {
+  cookie: string;
+  csrf: string;
+}
+
+/** Signs in over HTTP: a fresh session with its cookie and CSRF token. */
+async function signIn(url: string, email: string, password: string): Promise<Session> {
+  const first = await fetch(`${url}/api/auth/csrf`);
+  const anon = first.headers.getSetCookie()[0].split(';')[0];
+  const { csrfToken } = (await first.json()) as { csrfToken: string };
+  const res = await fetch(`${url}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { cookie: anon, 'x-csrf-token': csrfToken, 'content-type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
+  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
+  const body = (await res.json()) as { csrfToken: string };
+  return { cookie: res.headers.getSetCookie()[0].split(';')[0], csrf: body.csrfToken };
+}
+
+/** The server process whose CPU time each run reads (utime + stime from /proc, Linux). */
+let serverPid = 0;
+const TICKS_PER_S = 100; // USER_HZ on Linux (getconf CLK_TCK)
+function cpuMsOf(pid: number): number {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_S;
+  } catch {
+    return NaN;
+  }
+}
+
+interface LoadResult {
+  /** Server-process CPU per request (all its threads), independent of how busy the machine is. */
+  cpuMsPerReq: number;
+  rps: number;
+  p50: number;
+  p99: number;
+  non2xx: number;
+  errors: number;
+  requests: number;
+}
+
+/** autocannon against one path; every connection keeps one session of `sessions` for the whole run. */
+async function load(url: string, pathName: string, sessions: Session[], opts: { overallRate?: number } = {}): Promise<LoadResult> {
+  let next = 0;
+  const cpu0 = cpuMsOf(serverPid);
+  const result = await autocannon({
+    url: `${url}${pathName}`,
+    connections: CONNECTIONS,
+    duration: SECONDS,
+    ...(opts.overallRate ? { overallRate: opts.overallRate } : {}),
+    requests: [
+      {
+        setupRequest: (req, context) => {
+          const ctx = context as { cookie?: string };
+          ctx.cookie ??= sessions[next++ % sessions.length].cookie;
+          return { ...req, headers: { ...req.headers, cookie: ctx.cookie } };
+        },
+      },
+    ],
+  });
+  return {
+    cpuMsPerReq: (cpuMsOf(serverPid) - cpu0) / Math.max(1, result.requests.total),
+    rps: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    non2xx: result.non2xx,
+    errors: result.errors + result.timeouts,
+    requests: result.requests.total,
+  };
+}
+
+const verdict = (ok: boolean) => (ok ? 'meets target' : 'MISSES target');
+
+function jsonRows(label: string, flat: LoadResult, paced: LoadResult): BenchRow[] {
+  return [
+    {
+      run: `${label}, flat out`,
+      'req/s': flat.rps.toFixed(0),
+      'p50 ms': flat.p50,
+      'p99 ms': flat.p99,
+      'non-2xx/errors': `${flat.non2xx}/${flat.errors}`,
+      'server CPU ms/req': flat.cpuMsPerReq.toFixed(2),
+      target: `≥ ${TARGET.jsonRps} req/s`,
+      ratio: `${(flat.rps / TARGET.jsonRps).toFixed(2)}× — ${verdict(flat.rps >= TARGET.jsonRps)}`,
+    },
+    {
+      run: `${label}, at ${TARGET.jsonRps} req/s`,
+      'req/s': paced.rps.toFixed(0),
+      'p50 ms': paced.p50,
+      'p99 ms': paced.p99,
+      'non-2xx/errors': `${paced.non2xx}/${paced.errors}`,
+      'server CPU ms/req': paced.cpuMsPerReq.toFixed(2),
+      target: `p99 ≤ ${TARGET.jsonP99Ms} ms`,
+      ratio: `${(TARGET.jsonP99Ms / Math.max(paced.p99, 0.01)).toFixed(2)}× — ${verdict(paced.p99 <= TARGET.jsonP99Ms && paced.rps >= TARGET.jsonRps * 0.95)}`,
+    },
+  ];
+}
+
+/** Two audits started through the API, then each JSON endpoint flat out and at the target rate while they run. */
+async function duringAudits(url: string, endpoints: ReadonlyArray<readonly [string, string]>, sessions: Session[], projectIds: number[], where: string): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  const carto = sessions[1];
+  const auditOf = async (id: number) => (await (await fetch(`${url}/api/audits/${id}`, { headers: { cookie: carto.cookie } })).json()) as { status: string; progress: number };
+  for (const [label, p] of endpoints) {
+    const ids: number[] = [];
+    for (const projectId of projectIds) {
+      const res = await fetch(`${url}/api/projects/${projectId}/audits`, {
+        method: 'POST',
+        headers: { cookie: carto.cookie, 'x-csrf-token': carto.csrf, 'content-type': 'application/json' },
+        body: JSON.stringify({ samples: 200_000, seed: Math.floor(Math.random() * 1e6) }),
+      });
+      if (res.status !== 202) throw new Error(`background audit refused: ${res.status} ${await res.text()}`);
+      ids.push(((await res.json()) as { id: number }).id);
+    }
+    const t0 = performance.now();
+    const flat = await load(url, p, sessions);
+    const paced = await load(url, p, sessions, { overallRate: TARGET.jsonRps });
+    const states = await Promise.all(ids.map(auditOf));
+    rows.push(...jsonRows(`${label} during 2 audits ${where}`, flat, paced));
+    rows.push({ run: `  (the 2 audits after ${((performance.now() - t0) / 1000).toFixed(0)} s of load)`, 'req/s': '', 'p50 ms': '', 'p99 ms': '', 'non-2xx/errors': '', target: '', ratio: states.map((s) => `${s.status} ${(s.progress * 100).toFixed(0)}%`).join(', ') });
+    // Let them finish before the next endpoint starts its own pair.
+    for (const id of ids) {
+      for (let i = 0; i < 900 && !['done', 'failed'].includes((await auditOf(id)).status); i++) await new Promise((r) => setTimeout(r, 200));
+    }
+  }
+  return rows;
+}
+
+const loadSection: BenchSection = {
+  name: `load: ${CONNECTIONS} signed-in clients on the production server (autocannon, ${SECONDS} s per run)`,
+  async run() {
+    const environment = await loadEnvironment();
+    const { ensureClientBuilt } = await import('../support/serve-app.js');
+    const { freePort, startAppProcess, startWorkerProcess, stopGently } = await import('../support/process.js');
+    ensureClientBuilt();
+    const data = await seed();
+    const port = await freePort();
+    const url = `http://127.0.0.1:${port}`;
+    // WM_BENCH_PROFILE=<dir> writes a CPU profile of the server process there (for finding hot paths).
+    const nodeArgs = process.env.WM_BENCH_PROFILE ? ['--cpu-prof', `--cpu-prof-dir=${process.env.WM_BENCH_PROFILE}`] : [];
+    const loadAtStart = os.loadavg().slice(0, 2).map((l) => l.toFixed(1)).join(' / ');
+    let worker: Awaited<ReturnType<typeof startWorkerProcess>> | undefined;
+    let server = await startAppProcess({ port, env: { ...environment.env, NODE_ENV: 'production' }, logFile: path.join(environment.dir, 'app.log'), nodeArgs });
+    serverPid = server.pid;
+    const rows: BenchRow[] = [];
+    try {
+      // 50 sessions over three staff accounts (successful sign-ins do not count against the limits).
+      const logins = [data.users.editor, data.users.cartographer, data.users.admin];
+      const sessions: Session[] = [];
+      for (let i = 0; i < CONNECTIONS; i += 5) {
+        sessions.push(...(await Promise.all(Array.from({ length: 5 }, (_, k) => signIn(url, logins[(i + k) % 3].email, logins[(i + k) % 3].password)))));
+      }
+      const heatmapPath = `/api/audits/${data.auditId}/candidates/${data.candidateId}/heatmap/areal-scale.png?size=512`;
+      const warm = await fetch(`${url}${heatmapPath}`, { headers: { cookie: sessions[0].cookie } });
+      if (warm.status !== 200) throw new Error(`heatmap warm-up failed: ${warm.status}`);
+      const endpoints = [
+        ['GET /api/projects', '/api/projects'],
+        ['GET /api/audits/:id (8 scorecards)', `/api/audits/${data.auditId}`],
+      ] as const;
+      for (const [label, p] of endpoints) {
+        await load(url, p, sessions, { overallRate: 100 }).catch(() => undefined); // warm-up, not reported
+        rows.push(...jsonRows(label, await load(url, p, sessions), await load(url, p, sessions, { overallRate: TARGET.jsonRps })));
+      }
+      const png = await load(url, heatmapPath, sessions);
+      rows.push({
+        run: 'cached heatmap PNG 512², flat out',
+        'req/s': png.rps.toFixed(0),
+        'p50 ms': png.p50,
+        'p99 ms': png.p99,
+        'non-2xx/errors': `${png.non2xx}/${png.errors}`,
+        'server CPU ms/req': png.cpuMsPerReq.toFixed(2),
+        target: `≥ ${TARGET.heatmapRps} req/s`,
+        ratio: `${(png.rps / TARGET.heatmapRps).toFixed(2)}× — ${verdict(png.rps >= TARGET.heatmapRps)}`,
+      });
+
+      // The JSON runs again while two audits (8 candidates × 200 000 samples each) run: first in
+      // the app process's own worker (the default), then with the app's worker off and the audits
+      // in an `npm run worker` process at a lower CPU priority (nice 10).
+      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in the app’s worker')));
+      await stopGently(server);
+      server = await startAppProcess({ port, env: { ...environment.env, NODE_ENV: 'production', WARPMETER_NO_INPROCESS_WORKER: '1' }, logFile: path.join(environment.dir, 'app-2.log'), nodeArgs });
+      serverPid = server.pid;
+      worker = await startWorkerProcess(environment.env, path.join(environment.dir, 'worker.log'), ['nice', '-n', '10']);
+      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in a worker at nice 10')));
+      const [l1, l5] = os.loadavg();
+      rows.push({ run: `machine load average at the end: ${l1.toFixed(1)} (1 min), ${l5.toFixed(1)} (5 min) on ${os.cpus().length} cores; at the start ${loadAtStart}`, 'req/s': '', 'p50 ms': '', 'p99 ms': '', 'non-2xx/errors': '', target: '', ratio: '' });
+    } finally {
+      await stopGently(server);
+      if (worker) await stopGently(worker);
+      await environment.close();
+    }
+    return rows;
+  },
+};
+
+export const sections: BenchSection[] = [loadSection];
