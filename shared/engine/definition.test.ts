@@ -13,6 +13,12 @@ describe('resolveDefinition', () => {
     expect(factorsAt(r, 10, 52).defined).toBe(true);
     expect(resolveDefinition('proj=merc').family.id).toBe('merc');
   });
+  it('makes the families proj4 leaves NaN without explicit defaults work as PROJ does', () => {
+    for (const def of ['+proj=aea +lat_1=29.5 +lat_2=45.5', '+proj=laea', '+proj=gnom +R=1', '+proj=cea', '+proj=eqdc +lat_1=20 +lat_2=60', '+proj=mill +R=1', '+proj=poly']) {
+      const f = factorsAt(resolveDefinition(def), 5, 10);
+      expect(f.defined, def).toBe(true);
+    }
+  });
   it('treats +R, and +a alone, as a sphere', () => {
     expect(resolveDefinition('+proj=merc +R=6371000').ellipsoid).toEqual({ aM: 6371000, es: 0 });
     expect(resolveDefinition('+proj=merc +a=6371000').ellipsoid.es).toBe(0);
