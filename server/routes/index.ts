@@ -10,11 +10,12 @@ import { invitationRoutes } from './invitations.routes.js';
 import { peopleRoutes } from './people.routes.js';
 import { projectsRoutes } from './projects.routes.js';
 import { regionsRoutes } from './regions.routes.js';
+import { reviewRoutes } from './review.routes.js';
 
 /**
  * The whole API as one table. Each module contributes its RouteSpecs; append new modules here.
  * The role × route test reads this same table.
  */
 export function apiRoutes(deps: AppDeps): RouteSpec[] {
-  return [...healthRoutes(deps), ...authRoutes(deps), ...peopleRoutes(deps), ...invitationRoutes(deps), ...projectsRoutes(deps), ...billingRoutes(deps), ...auditsRoutes(deps), ...exportsRoutes(deps), ...regionsRoutes(deps), ...candidatesRoutes(deps)];
+  return [...healthRoutes(deps), ...authRoutes(deps), ...peopleRoutes(deps), ...invitationRoutes(deps), ...projectsRoutes(deps), ...billingRoutes(deps), ...auditsRoutes(deps), ...exportsRoutes(deps), ...regionsRoutes(deps), ...candidatesRoutes(deps), ...reviewRoutes(deps)];
 }
