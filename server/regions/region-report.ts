@@ -12,7 +12,15 @@ export interface CleanFeature {
   index: number;
   name: string;
   polygons: PolygonRings[];
+  /** What cleaning changed in this feature. */
+  tally: CleanTally;
 }
+
+const sumTallies = (tallies: CleanTally[]): CleanTally => {
+  const out = emptyTally();
+  for (const t of tallies) for (const k of Object.keys(out) as (keyof CleanTally)[]) out[k] += t[k];
+  return out;
+};
 
 const NAME_KEYS = ['name', 'NAME', 'Name', 'NAME_EN', 'name_en', 'ADMIN', 'admin', 'NAME_LONG', 'title', 'label', 'NAMELSAD', 'STATE_NAME'];
 
@@ -29,13 +37,16 @@ export function featureName(f: Feature, index: number): string {
 
 /** Cleans every feature; refuses a file with no polygons at all, saying what it held instead. */
 export function cleanFeatures(file: ParsedRegionFile, fileName: string): { features: CleanFeature[]; tally: CleanTally } {
-  const tally = emptyTally();
+  const tallies: CleanTally[] = [];
   const features: CleanFeature[] = [];
   file.features.forEach((f, index) => {
     const name = featureName(f, index);
+    const tally = emptyTally();
+    tallies.push(tally);
     const polygons = featurePolygons(f, `Feature ${index + 1} ("${name}")`, tally);
-    if (polygons.length) features.push({ index, name, polygons });
+    if (polygons.length) features.push({ index, name, polygons, tally });
   });
+  const tally = sumTallies(tallies);
   if (!features.length) {
     const kinds = [...new Set(file.features.map((f) => f.geometry?.type ?? 'empty'))].join(', ') || 'no features';
     throw invalidRegion(`${fileName} has no polygons (it holds: ${kinds}); a region must be a Polygon or MultiPolygon.`);
@@ -84,13 +95,14 @@ function selfIntersections(polygons: PolygonRings[]): { count: number; sample: [
   return { count, sample };
 }
 
-/** The validation report of the picked features, merged. */
+/** The validation report of the picked features, merged; fixes counted in those features only. */
 export function buildReport(
   file: ParsedRegionFile,
   picked: CleanFeature[],
   totalFeatures: number,
-  tally: CleanTally,
+  fileTally: CleanTally,
 ): RegionReport {
+  const tally = { ...sumTallies(picked.map((f) => f.tally)), otherGeometriesIgnored: fileTally.otherGeometriesIgnored };
   const polygons = picked.flatMap((f) => f.polygons);
   const extent = regionExtent(polygons);
   const crossings = selfIntersections(polygons);

@@ -108,6 +108,8 @@ describe('accepted formats', () => {
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body.name).toBe('Michigan + Wisconsin');
     expect(res.body.report.pickedFeatures).toEqual([0, 2]);
+    // us-atlas rings come in d3's clockwise order: every picked ring (no holes here) was turned, and only those.
+    expect(res.body.report.ringsRewound).toBe(res.body.partCount);
     expect(res.body.partCount).toBe(seen.body.features[0].partCount + seen.body.features[2].partCount);
     expect(res.body.areaKm2).toBeCloseTo(seen.body.features[0].areaKm2 + seen.body.features[2].areaKm2, 6);
     expect(await regionRows()).toBe(before + 1);

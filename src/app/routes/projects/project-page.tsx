@@ -45,7 +45,10 @@ function ProjectPage() {
       ? [{ id: 'history', label: 'History', render: () => <HistoryPanel projectId={projectId} /> }]
       : []),
   ];
-  const selected = search.get('tab') ?? (project.region ? 'candidates' : 'region');
+  // Without a ?tab=, open where the work is: the region first, then the candidates. Decided once,
+  // so storing the first region does not switch the tab away from its report.
+  const [defaultTab] = useState(project.region ? 'candidates' : 'region');
+  const selected = search.get('tab') ?? defaultTab;
 
   return (
     <>

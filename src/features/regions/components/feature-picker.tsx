@@ -24,6 +24,9 @@ export function FeaturePicker({ features, value, onChange }: Props) {
     else next.add(index);
     onChange(next.size === features.length ? 'all' : [...next].sort((a, b) => a - b));
   };
+  const picked = features.filter((f) => chosen.has(f.index));
+  const pickedKm2 = picked.reduce((sum, f) => sum + f.areaKm2, 0);
+  const pickedVertices = picked.reduce((sum, f) => sum + f.vertexCount, 0);
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="text-sm font-medium text-ink-950">
@@ -53,6 +56,9 @@ export function FeaturePicker({ features, value, onChange }: Props) {
           </li>
         ))}
       </ul>
+      <p className="text-sm text-ink-800" aria-live="polite">
+        Picked: {picked.length} feature{picked.length === 1 ? '' : 's'}, {formatAreaKm2(pickedKm2)}, {new Intl.NumberFormat().format(pickedVertices)} vertices.
+      </p>
     </fieldset>
   );
 }

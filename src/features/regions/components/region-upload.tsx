@@ -24,6 +24,8 @@ export function RegionUpload({ projectId, onStored }: { projectId: number; onSto
   const [inspection, setInspection] = useState<RegionInspection | null>(null);
   const [choice, setChoice] = useState<FeatureChoice>('all');
   const [error, setError] = useState<string | null>(null);
+  // Remounts the file input on "start over": a file input's chosen file cannot be set from state.
+  const [inputKey, setInputKey] = useState(0);
   const inspect = useInspectRegion(projectId, setProgress);
   const store = useUploadRegion(projectId, setProgress);
   const { notify } = useToast();
@@ -33,6 +35,7 @@ export function RegionUpload({ projectId, onStored }: { projectId: number; onSto
     setInspection(null);
     setChoice('all');
     setProgress(null);
+    if (!f) setInputKey((k) => k + 1);
     setError(f && f.size > REGION_UPLOAD_MAX_BYTES ? `${f.name} is larger than 25 MB; simplify or split the boundary first.` : null);
   };
 
@@ -72,6 +75,7 @@ export function RegionUpload({ projectId, onStored }: { projectId: number; onSto
         {(control) => (
           <input
             {...control}
+            key={inputKey}
             type="file"
             name="file"
             accept={REGION_FILE_ACCEPT}
@@ -94,6 +98,7 @@ export function RegionUpload({ projectId, onStored }: { projectId: number; onSto
             {inspection.sourceCrs === 'EPSG:4326' ? 'Coordinates in WGS84 longitude/latitude.' : 'Reprojected from the CRS in its .prj to WGS84 longitude/latitude.'}
           </Alert>
           {inspection.features.length > 1 && <FeaturePicker features={inspection.features} value={choice} onChange={setChoice} />}
+          {inspection.features.length > 1 && <h3 className="text-sm font-medium text-ink-950">Checks of the whole file</h3>}
           <ValidationReport report={inspection.report} />
           <div className="flex gap-2">
             <Button onClick={save} loading={store.isPending}>
