@@ -137,6 +137,11 @@ describe('server and worker killed during an audit', () => {
     // Never partial: neither in the database nor through the API.
     expect([...seenCounts].filter((n) => n !== 0 && n !== DEFINITIONS.length)).toEqual([]);
     expect(apiViews.filter((v) => v !== `done:${DEFINITIONS.length}` && !/^(queued|running):0$/.test(v))).toEqual([]);
+    // What the processes logged through all this holds no secret of their configuration.
+    const config = loadConfig();
+    const logs = procs.map((pr) => pr.tail(5_000_000)).join('\n');
+    expect(logs).toContain('audit worker ready');
+    for (const secret of [config.sessionSecret, config.db.password, config.pay.apiKey, config.pay.webhookSecret]) expect(logs).not.toContain(secret);
     for (const pr of procs.filter((x) => x.child.exitCode === null && x.child.signalCode === null)) await stopGently(pr);
   }, 240_000);
 });

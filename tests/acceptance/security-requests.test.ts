@@ -1,4 +1,5 @@
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { Writable } from 'node:stream';
@@ -11,6 +12,8 @@ import { loadConfig } from '../../server/config.js';
 import { isStateChanging, type RouteSpec } from '../../server/http/route-table.js';
 import { rateLimitScale } from '../../server/middleware/rate-limit.js';
 import { apiRoutes } from '../../server/routes/index.js';
+import { Region } from '../../server/entities/index.js';
+import * as fx from '../fixtures/make-upload-fixtures.js';
 import { anonymousClient, createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
 import { createTestApp } from '../support/test-app.js';
 
@@ -178,6 +181,28 @@ describe('answers without internals', () => {
       for (const secret of secrets) expect(b).not.toContain(secret);
       expect(b).not.toMatch(/\n\s+at /);
     }
+  });
+});
+
+describe('upload paths', () => {
+  it('refuses zip entries that climb out of their folder, and keeps an uploaded file name from naming a path', async () => {
+    const project = (await s.cartographer.post('/api/projects', { title: 'Traversal', clientName: 'T', purpose: 'reference', scaleBand: 'country' })).body.id;
+    const upload = (data: Buffer, name: string) =>
+      s.cartographer.agent.post(`/api/projects/${project}/regions`).set('x-csrf-token', s.cartographer.csrf).attach('file', data, name);
+    const parts = await fx.unzipFixture(fx.SHAPEFILE_FIXTURE);
+    const target = path.join(os.tmpdir(), `wm-traversal-${randomBytes(4).toString('hex')}.shp`);
+    for (const evil of ['../../etc/cron.d/evil.shp', `../../../../../..${target}`, '/etc/evil.shp', 'a/../../evil.shp', 'C:\\evil.shp', 'a\\..\\..\\evil.shp']) {
+      const res = await upload(await fx.zipOf({ ...parts, [evil]: parts['michigan.shp'] }), 'region.zip');
+      expect(res.status, evil).toBe(422);
+      expect(res.body.error.message, evil).toMatch(/unsafe path/);
+    }
+    expect(fs.existsSync(target)).toBe(false);
+    // The name a browser sends is only a label: stored without any directory part.
+    const named = await upload(fx.fixture('great-lakes-states.geojson'), `../../..${target.replace(/\.shp$/, '.geojson')}`);
+    expect(named.status, JSON.stringify(named.body)).toBe(201);
+    expect(named.body.sourceFileName).not.toMatch(/[\\/]/);
+    expect(fs.existsSync(target.replace(/\.shp$/, '.geojson'))).toBe(false);
+    expect(await t.deps.dataSource.getRepository(Region).countBy({ projectId: project })).toBe(1);
   });
 });
 
