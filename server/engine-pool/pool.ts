@@ -6,6 +6,7 @@ import type { PreparedRegion } from '../../shared/engine/region/prepare';
 import type { RegionSamples } from '../../shared/engine/sampling';
 import type { CandidateMetrics } from '../../shared/engine/scorecard';
 import type { FactorLinesResult } from './factor-lines';
+import { bundledWorkerPath } from './worker-bundle';
 import type { WorkerRequest } from './factors-worker';
 
 type Pending = { resolve: (v: unknown) => void; reject: (e: Error) => void };
@@ -43,7 +44,8 @@ export class FactorPool {
 
   /** Starts size workers (default: one per core) and resolves once all are ready. */
   static async start(size = availableParallelism()): Promise<FactorPool> {
-    const url = new URL('./worker.mjs', import.meta.url);
+    const bundled = await bundledWorkerPath();
+    const url = bundled ? new URL(`file://${bundled}`) : new URL('./worker.mjs', import.meta.url);
     const slots = await Promise.all(
       Array.from({ length: Math.max(1, size) }, () => {
         const worker = new Worker(url);
