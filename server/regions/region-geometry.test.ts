@@ -6,6 +6,7 @@ import { emptyTally, featurePolygons } from './polygon-rings.js';
 import { regionExtent } from './region-extent.js';
 import type { Ring } from './ring-shape.js';
 import { ringShape } from './ring-shape.js';
+import { findSelfIntersections } from './self-intersections.js';
 
 const poly = (coordinates: number[][][]): Feature => ({ type: 'Feature', properties: {}, geometry: { type: 'Polygon', coordinates } });
 
@@ -98,5 +99,46 @@ describe('cleaning polygons', () => {
     expect(ringShape(parts[0][0]).area2).toBeGreaterThan(0);
     expect(ringAreaM2(parts[0][0])).toBeGreaterThan(0);
     expect(regionExtent(parts).poles).toEqual(['south']);
+  });
+});
+
+describe('self-intersections', () => {
+  it('finds the crossing of a bow-tie and of two rings, not touches or shared vertices', () => {
+    expect(findSelfIntersections([[[[0, 0], [2, 2], [2, 0], [0, 2], [0, 0]]]])).toEqual({ count: 1, sample: [[1, 1]] });
+    // A hole poking out through the outer ring crosses it twice.
+    const outer: Ring = [[0, 0], [4, 0], [4, 4], [0, 4], [0, 0]];
+    const hole: Ring = [[3, 1], [3, 3], [5, 3], [5, 1], [3, 1]];
+    const found = findSelfIntersections([[outer, hole]]);
+    expect(found.count).toBe(2);
+    expect(found.sample.map(([x, y]) => [x, y].map((v) => Math.round(v * 1e9) / 1e9))).toEqual(expect.arrayContaining([[4, 1], [4, 3]]));
+    // A clean square, and a ring touching itself at one vertex: no crossings.
+    expect(findSelfIntersections([[outer]]).count).toBe(0);
+    expect(findSelfIntersections([[[[0, 0], [2, 0], [1, 1], [2, 2], [0, 2], [1, 1], [0, 0]]]]).count).toBe(0);
+  });
+
+  it('agrees with a brute-force all-pairs check on a jagged ring of 2 000 random vertices', () => {
+    // A star-shaped ring with random radii crosses itself nowhere; reversing a stretch of it makes crossings.
+    let seed = 7;
+    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const ring: Ring = [];
+    for (let i = 0; i < 2000; i++) {
+      const t = (2 * Math.PI * i) / 2000;
+      const r = 1 + rand();
+      ring.push([10 + r * Math.cos(t), 10 + r * Math.sin(t)]);
+    }
+    ring.splice(500, 200, ...ring.slice(500, 700).reverse());
+    ring.push(ring[0]);
+    let brute = 0;
+    const n = ring.length - 1;
+    const o = (a: number[], b: number[], c: number[]) => (b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]);
+    for (let i = 0; i < n; i++) {
+      for (let j = i + 2; j < n; j++) {
+        if (i === 0 && j === n - 1) continue;
+        const [a, b, c, d] = [ring[i], ring[i + 1], ring[j], ring[j + 1]];
+        if (o(a, b, c) * o(a, b, d) < 0 && o(c, d, a) * o(c, d, b) < 0) brute++;
+      }
+    }
+    expect(brute).toBeGreaterThan(0);
+    expect(findSelfIntersections([[ring]]).count).toBe(brute);
   });
 });

@@ -1,4 +1,3 @@
-import { kinks } from '@turf/turf';
 import type { Feature, MultiPolygon, Polygon } from 'geojson';
 import type { RegionFeatureSummary, RegionReport } from '../../shared/api/regions.schema.js';
 import { polygonsAreaKm2 } from './geodesic-area.js';
@@ -6,6 +5,7 @@ import { emptyTally, featurePolygons, vertexCountOf, type CleanTally, type Polyg
 import type { ParsedRegionFile } from './read-upload.js';
 import { invalidRegion, UPLOAD_LIMITS } from './region-errors.js';
 import { regionExtent } from './region-extent.js';
+import { findSelfIntersections } from './self-intersections.js';
 
 /** A feature of the file after cleaning, ready to be picked. */
 export interface CleanFeature {
@@ -75,26 +75,6 @@ export function toGeometry(polygons: PolygonRings[]): Polygon | MultiPolygon {
     : { type: 'MultiPolygon', coordinates: polygons };
 }
 
-/**
- * Points where a ring crosses itself or another ring of the same polygon (turf kinks, a sweep
- * line). Touches on ±180° and the pole lines are left out: those seams are where we (or the
- * source) cut and closed rings, and rings meeting along them do not cross.
- */
-function selfIntersections(polygons: PolygonRings[]): { count: number; sample: [number, number][] } {
-  let count = 0;
-  const sample: [number, number][] = [];
-  for (const rings of polygons) {
-    const found = kinks({ type: 'Polygon', coordinates: rings });
-    for (const p of found.features) {
-      const [lon, lat] = p.geometry.coordinates;
-      if (Math.abs(lon) === 180 || Math.abs(lat) === 90) continue;
-      count++;
-      if (sample.length < 5) sample.push([lon, lat]);
-    }
-  }
-  return { count, sample };
-}
-
 /** The validation report of the picked features, merged; fixes counted in those features only. */
 export function buildReport(
   file: ParsedRegionFile,
@@ -105,7 +85,7 @@ export function buildReport(
   const tally = { ...sumTallies(picked.map((f) => f.tally)), otherGeometriesIgnored: fileTally.otherGeometriesIgnored };
   const polygons = picked.flatMap((f) => f.polygons);
   const extent = regionExtent(polygons);
-  const crossings = selfIntersections(polygons);
+  const crossings = findSelfIntersections(polygons);
   const notes = [...file.notes];
   if (file.format === 'shapefile' && tally.ringsRewound) {
     notes.push('Shapefiles list outer rings clockwise; rings were turned to GeoJSON’s counter-clockwise order.');
