@@ -145,13 +145,17 @@ const auditSection: BenchSection = {
 };
 
 const memorySection: BenchSection = {
-  name: '`warpmeter factors` on 10 000 000 lines (streaming memory)',
+  name: '`warpmeter factors` peak memory on 1 and 10 million lines (streaming: it should not grow)',
   async run() {
-    const gen = `${tmp}/bench-gen-10m.mjs`;
-    writeFileSync(gen, `let s='';for(let i=0;i<1e7;i++){s+=((i*0.6180339887)%1*50-10).toFixed(5)+' '+((i*0.7548776662)%1*35+36).toFixed(5)+'\\n';if(s.length>1<<16){if(!process.stdout.write(s))await new Promise(r=>process.stdout.once('drain',r));s='';}}process.stdout.write(s);`);
-    const t0 = performance.now();
-    const out = execFileSync('bash', ['-c', `node ${gen} | /usr/bin/time -f '%M' node ${repoRoot}server/cli/bin.mjs factors --proj '+proj=laea +lat_0=52 +lon_0=10 +ellps=GRS80' 2>&1 >/dev/null | tail -1`]).toString().trim();
-    return [{ lines: '10 000 000', 'peak RSS MB': (Number(out) / 1024).toFixed(0), 'wall s': seconds(t0).toFixed(1) }];
+    const rows: BenchRow[] = [];
+    for (const lines of [1_000_000, 10_000_000]) {
+      const gen = `${tmp}/bench-gen.mjs`;
+      writeFileSync(gen, `const n=Number(process.argv[2]);let s='';for(let i=0;i<n;i++){s+=((i*0.6180339887)%1*50-10).toFixed(5)+' '+((i*0.7548776662)%1*35+36).toFixed(5)+'\\n';if(s.length>1<<16){if(!process.stdout.write(s))await new Promise(r=>process.stdout.once('drain',r));s='';}}process.stdout.write(s);`);
+      const t0 = performance.now();
+      const out = execFileSync('bash', ['-c', `node ${gen} ${lines} | /usr/bin/time -f '%M' node ${repoRoot}server/cli/bin.mjs factors --proj '+proj=laea +lat_0=52 +lon_0=10 +ellps=GRS80' 2>&1 >/dev/null | tail -1`]).toString().trim();
+      rows.push({ lines: lines.toLocaleString('en'), 'peak RSS MB': (Number(out) / 1024).toFixed(0), 'wall s': seconds(t0).toFixed(1) });
+    }
+    return rows;
   },
 };
 
