@@ -1,6 +1,6 @@
 import { Worker } from 'node:worker_threads';
-import { unavailable } from '../http/errors.js';
-import type { EngineTask, EngineTaskResult } from './engine-tasks.js';
+import { HttpError, unavailable } from '../http/errors.js';
+import type { EngineRunner, EngineTask, EngineTaskResult } from './engine-tasks.js';
 
 interface Waiting {
   resolve: (v: EngineTaskResult) => void;
@@ -9,12 +9,12 @@ interface Waiting {
 }
 
 /**
- * One persistent worker thread for proposals and optimisation, started on first use (loading the
- * engine and its EPSG index takes about a second, so it is kept) and unref'd so it never holds
- * the process open. Tasks queue in order; a task that runs past its time limit has the thread
+ * One persistent worker thread for region checks, proposals and optimisation, started on first
+ * use (loading the engine and its EPSG index takes about a second, so it is kept) and unref'd so
+ * it never holds the process open. Tasks queue in order; a task that runs past its time limit has the thread
  * replaced, and too long a queue is refused with a 503 rather than piling up.
  */
-export class EngineThread {
+export class EngineThread implements EngineRunner {
   private worker: Worker | undefined;
   private ready: Promise<Worker> | undefined;
   private nextId = 1;
@@ -28,14 +28,22 @@ export class EngineThread {
     worker.unref();
     this.worker = worker;
     this.ready = new Promise<Worker>((resolve, reject) => {
-      worker.on('message', (msg: { ready?: boolean; id?: number; ok?: boolean; result?: EngineTaskResult; error?: string }) => {
+      type Reply = {
+        ready?: boolean;
+        id?: number;
+        ok?: boolean;
+        result?: EngineTaskResult;
+        error?: string;
+        http?: { status: number; code: string; fields?: Record<string, string> };
+      };
+      worker.on('message', (msg: Reply) => {
         if (msg.ready) return resolve(worker);
         const w = this.waiting.get(msg.id!);
         if (!w) return;
         this.waiting.delete(msg.id!);
         clearTimeout(w.timer);
         if (msg.ok) w.resolve(msg.result!);
-        else w.reject(new Error(msg.error));
+        else w.reject(msg.http ? new HttpError(msg.http.status, msg.http.code, msg.error ?? '', msg.http.fields) : new Error(msg.error));
       });
       worker.on('error', (err) => {
         reject(err);
@@ -62,8 +70,12 @@ export class EngineThread {
     this.reset();
   }
 
-  /** Runs a task in the thread; rejects with the engine's message, or 503 when busy or too slow. */
-  async run(task: EngineTask, timeoutMs = 60_000): Promise<EngineTaskResult> {
+  /** Runs a task in the thread; rejects with the task's own error, or 503 when busy or too slow. */
+  run<K extends EngineTask['kind']>(task: Extract<EngineTask, { kind: K }>): Promise<Extract<EngineTaskResult, { kind: K }>> {
+    return this.runAny(task) as never;
+  }
+
+  private async runAny(task: EngineTask, timeoutMs = 60_000): Promise<EngineTaskResult> {
     if (this.waiting.size >= this.maxQueued) throw unavailable('The engine is busy with other requests; try again in a moment.');
     const worker = await this.start();
     const id = this.nextId++;
@@ -77,6 +89,7 @@ export class EngineThread {
       }, timeoutMs);
       timer.unref();
       this.waiting.set(id, { resolve, reject, timer });
+      // An upload's bytes are copied once into the thread (structured clone of a Uint8Array).
       worker.postMessage({ id, task });
     });
   }
@@ -86,4 +99,9 @@ export class EngineThread {
     this.reset();
     await w?.terminate();
   }
+}
+
+/** The app's one engine thread, made on first use and kept in deps.services. */
+export function sharedEngineThread(services: Record<string, unknown>): EngineThread {
+  return (services.engineThread ??= new EngineThread()) as EngineThread;
 }

@@ -4,7 +4,7 @@ import {
   resolveDefinitionSchema,
   updateCandidateSchema,
 } from '../../shared/api/candidates.schema.js';
-import { EngineThread } from '../candidates/engine-thread.js';
+import { sharedEngineThread } from '../engine-tasks/engine-thread.js';
 import type { AppDeps } from '../deps.js';
 import type { RouteSpec } from '../http/route-table.js';
 import { idParam } from '../services/project-guard.js';
@@ -27,8 +27,8 @@ const candidate = (v: unknown) => idParam(v, 'That candidate');
 /** Candidates: the engine's proposals, manual entry with live validation, optimisation, edits. */
 export function candidatesRoutes(deps: AppDeps): RouteSpec[] {
   const ds = deps.dataSource;
-  // One engine thread per app for proposals and optimisation (kept: it takes ~1 s to start).
-  const engine = (deps.services.candidateEngine ??= new EngineThread()) as EngineThread;
+  // Proposals and optimisation run in the app's engine thread (kept: it takes ~1 s to start).
+  const engine = sharedEngineThread(deps.services);
   return [
     {
       method: 'post',

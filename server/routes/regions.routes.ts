@@ -1,5 +1,6 @@
 import { storeRegionFieldsSchema } from '../../shared/api/regions.schema.js';
 import type { AppDeps } from '../deps.js';
+import { sharedEngineThread } from '../engine-tasks/engine-thread.js';
 import type { RouteSpec } from '../http/route-table.js';
 import { regionUpload, uploadedFile } from '../regions/upload-middleware.js';
 import { idParam } from '../services/project-guard.js';
@@ -12,6 +13,8 @@ const project = (v: unknown) => idParam(v, 'That project');
 /** Region upload (inspect, then store the picked features), history and the current region. */
 export function regionsRoutes(deps: AppDeps): RouteSpec[] {
   const ds = deps.dataSource;
+  // Reading and checking a file takes up to seconds for a detailed boundary: done in the engine thread.
+  const engine = sharedEngineThread(deps.services);
   return [
     {
       method: 'post',
@@ -19,7 +22,7 @@ export function regionsRoutes(deps: AppDeps): RouteSpec[] {
       access: WRITE,
       before: [regionUpload],
       summary: 'Read and check a region file (multipart field "file"); lists its features; stores nothing',
-      handler: (req) => inspectRegion(ds, req.actor!, project(req.params.projectId), uploadedFile(req.file)),
+      handler: (req) => inspectRegion(ds, engine, req.actor!, project(req.params.projectId), uploadedFile(req.file)),
     },
     {
       method: 'post',
@@ -30,7 +33,7 @@ export function regionsRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const projectId = project(req.params.projectId);
         const fields = storeRegionFieldsSchema.parse({ features: req.body?.features ?? 'all', name: req.body?.name || undefined });
-        const region = await storeRegion(ds, req.actor!, projectId, uploadedFile(req.file), fields.features, fields.name);
+        const region = await storeRegion(ds, engine, req.actor!, projectId, uploadedFile(req.file), fields.features, fields.name);
         res.status(201);
         return region;
       },

@@ -4,7 +4,7 @@ import type { Feature, FeatureCollection } from 'geojson';
 import { feature } from 'topojson-client';
 import type { GeometryCollection, Topology } from 'topojson-specification';
 import type { CreateProjectInput } from '../../shared/api/projects.schema.js';
-import { runEngineTask } from '../candidates/engine-tasks.js';
+import { inlineRunner } from '../engine-tasks/engine-tasks.js';
 import { Candidate, MapProject, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { addCandidate } from '../services/candidates.service.js';
@@ -107,12 +107,12 @@ export async function seedDemoProjects(ctx: DemoContext): Promise<void> {
     const projectId = found?.id ?? (await createProject(ds, actor, demo.input)).id;
     if (!(await ds.getRepository(Region).existsBy({ projectId, isCurrent: true }))) {
       const buffer = Buffer.from(JSON.stringify({ type: 'FeatureCollection', features: demo.features() }));
-      await storeRegion(ds, actor, projectId, { buffer, fileName: demo.fileName }, 'all', demo.regionName);
+      await storeRegion(ds, inlineRunner, actor, projectId, { buffer, fileName: demo.fileName }, 'all', demo.regionName);
     }
     const { geometry } = await ds.getRepository(Region).findOneByOrFail({ projectId, isCurrent: true });
     if (await ds.getRepository(Candidate).existsBy({ projectId })) continue;
-    const out = runEngineTask({ kind: 'suggest', geometry: geometry as never, purpose: demo.input.purpose });
-    const proposals = out.kind === 'suggest' ? out.proposals.slice(0, demo.proposals) : [];
+    const out = await inlineRunner.run({ kind: 'suggest', geometry: geometry as never, purpose: demo.input.purpose });
+    const proposals = out.proposals.slice(0, demo.proposals);
     for (const p of proposals) {
       await addCandidate(ds, actor, projectId, { definition: p.definition, label: p.label, origin: 'proposed', reason: p.reason });
     }

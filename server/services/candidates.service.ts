@@ -12,7 +12,7 @@ import type {
 import { createCandidateSchema } from '../../shared/api/candidates.schema.js';
 import { FAMILIES, resolveDefinition, type MapPurpose, type ResolvedDefinition } from '../../shared/engine/index.js';
 import { checkDefinitionSanity } from '../candidates/definition-checks.js';
-import type { EngineThread } from '../candidates/engine-thread.js';
+import type { EngineRunner } from '../engine-tasks/engine-tasks.js';
 import { Candidate, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, notFound, validationFailed } from '../http/errors.js';
@@ -166,7 +166,7 @@ async function currentRegionRow(ds: DataSource, actor: Actor, projectId: number)
 /** Proposals are deterministic per region and purpose; remembered for repeat page loads. */
 const proposalCache = new Map<string, ProposalList['proposals']>();
 
-export async function listProposals(ds: DataSource, engine: EngineThread, actor: Actor, projectId: number): Promise<ProposalList> {
+export async function listProposals(ds: DataSource, engine: EngineRunner, actor: Actor, projectId: number): Promise<ProposalList> {
   const project = await loadProjectFor(ds, actor, projectId, 'read');
   const region = await currentRegionRow(ds, actor, project.id);
   if (!region) return { regionId: null, purpose: project.purpose, proposals: [] };
@@ -174,7 +174,6 @@ export async function listProposals(ds: DataSource, engine: EngineThread, actor:
   let proposals = proposalCache.get(key);
   if (!proposals) {
     const out = await engine.run({ kind: 'suggest', geometry: region.geometry as Polygon | MultiPolygon, purpose: project.purpose as MapPurpose });
-    if (out.kind !== 'suggest') throw new Error('engine thread answered the wrong task');
     proposals = out.proposals.map((p) => ({ ...p, candidateId: null }));
     if (proposalCache.size > 200) proposalCache.delete(proposalCache.keys().next().value!);
     proposalCache.set(key, proposals);
@@ -199,7 +198,7 @@ export async function listProposals(ds: DataSource, engine: EngineThread, actor:
 /** Tunes a family's parameters for the current region; the result is offered, not stored. */
 export async function optimiseFamily(
   ds: DataSource,
-  engine: EngineThread,
+  engine: EngineRunner,
   actor: Actor,
   projectId: number,
   input: OptimiseInput,
@@ -221,7 +220,6 @@ export async function optimiseFamily(
     if ((err as { status?: number }).status) throw err;
     throw validationFailed(`The optimiser could not tune this family for the region: ${(err as Error).message}.`, { family: (err as Error).message });
   }
-  if (out.kind !== 'optimise') throw new Error('engine thread answered the wrong task');
   const r = out.result;
   const params = Object.entries(r.params).map(([k, v]) => `${k} ${v}`).join(', ');
   return {

@@ -2,9 +2,8 @@ import type { DataSource } from 'typeorm';
 import type { FeaturePick, RegionInspection, RegionView, RegionWithGeometry } from '../../shared/api/regions.schema.js';
 import { MapProject, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
+import type { EngineRunner } from '../engine-tasks/engine-tasks.js';
 import { canonicalSha256 } from '../regions/canonical-json.js';
-import { checkRegionFile, inspection, pickedReport, pickFeatures, regionName } from '../regions/inspect-file.js';
-import { toGeometry } from '../regions/region-report.js';
 import type { UploadedFile } from '../regions/upload-middleware.js';
 import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
@@ -28,9 +27,16 @@ const toView = (r: Region): RegionView => ({
 });
 
 /** Reads and checks a file for the feature picker; stores nothing. */
-export async function inspectRegion(ds: DataSource, actor: Actor, projectId: number, upload: UploadedFile): Promise<RegionInspection> {
+export async function inspectRegion(
+  ds: DataSource,
+  engine: EngineRunner,
+  actor: Actor,
+  projectId: number,
+  upload: UploadedFile,
+): Promise<RegionInspection> {
   await loadProjectFor(ds, actor, projectId, 'write');
-  return inspection(await checkRegionFile(upload.buffer, upload.fileName));
+  const out = await engine.run({ kind: 'inspect-region', file: upload.buffer, fileName: upload.fileName });
+  return out.inspection;
 }
 
 /**
@@ -40,6 +46,7 @@ export async function inspectRegion(ds: DataSource, actor: Actor, projectId: num
  */
 export async function storeRegion(
   ds: DataSource,
+  engine: EngineRunner,
   actor: Actor,
   projectId: number,
   upload: UploadedFile,
@@ -47,10 +54,8 @@ export async function storeRegion(
   name?: string,
 ): Promise<RegionView> {
   const project = await loadProjectFor(ds, actor, projectId, 'write');
-  const checked = await checkRegionFile(upload.buffer, upload.fileName);
-  const picked = pickFeatures(checked, pick);
-  const report = pickedReport(checked, picked);
-  const geometry = toGeometry(picked.flatMap((f) => f.polygons));
+  const { region } = await engine.run({ kind: 'read-region', file: upload.buffer, fileName: upload.fileName, pick });
+  const { geometry, report } = region;
   const saved = await ds.transaction(async (m) => {
     const repo = m.getRepository(Region);
     await repo.update({ projectId: project.id, studioId: actor.studioId, isCurrent: true }, { isCurrent: false });
@@ -58,10 +63,10 @@ export async function storeRegion(
       repo.create({
         projectId: project.id,
         studioId: actor.studioId,
-        name: name || regionName(picked),
+        name: name || region.name,
         sourceFileName: upload.fileName,
-        sourceFormat: checked.file.format,
-        sourceCrs: checked.file.sourceCrs,
+        sourceFormat: region.format,
+        sourceCrs: region.sourceCrs,
         geometry,
         sha256: canonicalSha256(geometry),
         areaKm2: report.areaKm2,
