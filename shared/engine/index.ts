@@ -17,7 +17,7 @@
  * Scorecards, fields, proposals, optimiser
  *   scoreCandidate(resolved, samples, prepared?, { factors? }): CandidateMetrics
  *   computeSampleFields(resolved, samples, factors?): SampleFields   s, ω, scale error per sample (heatmaps)
- *   suggestCandidates(summary, purpose): Proposal[]            6–12 candidates with reasons
+ *   suggestCandidates(summary | geojson, purpose): Proposal[]  6–12 candidates with reasons
  *   optimise(geojson | prepared, family, criterion, options?): OptimiseResult
  * Routes
  *   geodesicPoints(a, b, stepKm), rhumbPoints(a, b, count), rhumbBearingDeg(a, b)

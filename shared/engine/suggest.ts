@@ -1,4 +1,6 @@
-import type { RegionSummary } from './region/summary';
+import type { RegionInput } from './region/geojson';
+import type { PreparedRegion } from './region/prepare';
+import { regionSummary, type RegionSummary } from './region/summary';
 
 export type MapPurpose = 'equal-area' | 'conformal' | 'reference' | 'equidistant';
 export const MAP_PURPOSES: readonly MapPurpose[] = ['equal-area', 'conformal', 'reference', 'equidistant'];
@@ -19,9 +21,11 @@ const r2 = (x: number) => Math.round(x * 100) / 100;
  * centre, the transverse Mercator on its central meridian, polar regions get polar aspects, and
  * world extents get equal-area and compromise world maps. Rules of thumb are starting points,
  * not optima (Šavrič & Jenny 2016): see optimise().
+ * Takes the region's summary, or the region itself (GeoJSON or prepared).
  * Example: suggestCandidates(regionSummary(usa48), 'equal-area')[0].family === 'aea'.
  */
-export function suggestCandidates(region: RegionSummary, purpose: MapPurpose): Proposal[] {
+export function suggestCandidates(input: RegionSummary | RegionInput | PreparedRegion, purpose: MapPurpose): Proposal[] {
+  const region = 'centreLatDeg' in input ? input : regionSummary(input);
   if (!MAP_PURPOSES.includes(purpose)) throw new Error(`unknown purpose "${purpose}" (one of ${MAP_PURPOSES.join(', ')})`);
   const [, south, , north] = region.bbox;
   const lat0 = r2(region.centreLatDeg);
