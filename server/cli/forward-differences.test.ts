@@ -53,6 +53,18 @@ describe('forward differences between proj4 and PROJ', () => {
     expect(ours.defined && Math.abs(ours.h / exact - 1)).toBeLessThan(1e-12);
   });
 
+  it('American polyconic: the forward cancels near the equator, so the engine differences it with a wider step; PROJ\'s h there is ~3e-7 off', async () => {
+    const def = '+proj=poly +lon_0=-96 +ellps=clrk66';
+    const proj = parseRows((await runWithInput(harness, [def], '-106 0\n-106 1\n')).stdout);
+    const atEquator = factorsAt(resolveDefinition(def), -106, 0);
+    const nearby = factorsAt(resolveDefinition(def), -106, 0.001);
+    if (!atEquator.defined || !nearby.defined) throw new Error('undefined');
+    expect(Math.abs(atEquator.h / nearby.h - 1)).toBeLessThan(1e-8); // continuous across the equator
+    expect(Math.abs(proj[0][0] / atEquator.h - 1)).toBeGreaterThan(1e-7);
+    const at1 = factorsAt(resolveDefinition(def), -106, 1);
+    expect(at1.defined && Math.abs(at1.h / proj[1][0] - 1)).toBeLessThan(1e-8); // away from it both agree
+  });
+
   it('ellipsoidal azimuthal equidistant: proj4 iterates Vincenty, PROJ uses GeographicLib, as the engine\'s factors do (checked against s₁₂/m₁₂)', async () => {
     const def = '+proj=aeqd +lat_0=40 +lon_0=-100 +ellps=WGS84';
     const pts = [[-75, 35], [-100, -12.5], [20, 10]];

@@ -72,7 +72,7 @@ export function createFactorEvaluator(resolved: ResolvedDefinition, options: { n
     }
   };
   const lon0 = projection.long0 ?? 0;
-  const numeric = () => numericJacobian(rawForward, lon0);
+  const numeric = () => numericJacobian(rawForward, lon0, resolved.family.stepRad);
   const analytic = options.numericOnly ? undefined : analyticJacobian(resolved.family.id, projection, numeric);
   const jacobian: JacobianRad = analytic ?? numeric();
   const aM = resolved.factorEllipsoid.aM;
