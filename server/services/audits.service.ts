@@ -48,7 +48,8 @@ export function auditSummary(a: Audit): AuditSummary {
 export function auditInputHash(regionSha256: string, settings: StoredAuditSettings, engineVersion: string): string {
   return canonicalSha256({
     region: regionSha256,
-    definitions: settings.candidates.map((c) => c.resolved),
+    // As entered (what the engine evaluates) and as resolved (the PROJ string shown and exported).
+    definitions: settings.candidates.map((c) => ({ definition: c.definition, resolved: c.resolved })),
     settings: { samples: settings.samples, seed: settings.seed },
     engineVersion,
   });
