@@ -3,7 +3,9 @@ import { resolveDefinition } from '../../shared/engine/definition.js';
 import { prepareRegion } from '../../shared/engine/region/prepare.js';
 import { sampleRegion } from '../../shared/engine/sampling.js';
 import { scoreCandidate } from '../../shared/engine/scorecard.js';
-import { Audit, MapProject, ProjectAccess, Scorecard } from '../../server/entities/index.js';
+import { Audit, Candidate, MapProject, ProjectAccess, Region, Scorecard } from '../../server/entities/index.js';
+import { canonicalSha256 } from '../../server/regions/canonical-json.js';
+import { ENGINE_VERSION } from '../../shared/engine/version.js';
 import { seedDemoAudits } from '../../server/jobs/demo-audits.js';
 import { recoverAudits } from '../../server/jobs/recover.js';
 import { createAuditRow } from '../../server/services/audits.service.js';
@@ -48,7 +50,18 @@ describe('audits as background jobs', () => {
     const res = await s.cartographer.post(`/api/projects/${p.projectId}/audits`, { samples: 5000, seed: 7 });
     expect(res.status).toBe(202);
     expect(res.body.status).toBe('queued');
-    expect(res.body.inputHash).toMatch(/^[0-9a-f]{64}$/);
+    // Anyone holding the inputs can recompute the hash: canonical JSON (RFC 8785 style) of region hash,
+    // definitions, settings and engine version.
+    const region = await t.deps.dataSource.getRepository(Region).findOneByOrFail({ id: p.regionId });
+    const candidates = await t.deps.dataSource.getRepository(Candidate).findBy({ projectId: p.projectId });
+    expect(res.body.inputHash).toBe(
+      canonicalSha256({
+        region: region.sha256,
+        definitions: candidates.sort((x, y) => x.id - y.id).map((c) => ({ definition: c.definition, resolved: c.resolved })),
+        settings: { samples: 5000, seed: 7 },
+        engineVersion: ENGINE_VERSION,
+      }),
+    );
     const { audit } = await waitForAudit((u) => s.cartographer.get(u), res.body.id);
     expect(audit.status).toBe('done');
     expect(audit.progress).toBe(1);
