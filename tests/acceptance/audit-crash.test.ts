@@ -35,7 +35,7 @@ function startWorker(): Promise<ChildProcess> {
     child.stdout!.on('data', onData);
     child.stderr!.on('data', (b: Buffer) => (out += b.toString()));
     child.once('exit', (code) => reject(new Error(`worker exited (${code}) before it was ready:\n${out}`)));
-    setTimeout(() => reject(new Error(`worker not ready after 30 s:\n${out}`)), 30_000).unref();
+    setTimeout(() => reject(new Error(`worker not ready after 60 s:\n${out}`)), 60_000).unref();
   });
 }
 
