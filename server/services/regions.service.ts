@@ -58,6 +58,8 @@ export async function storeRegion(
   const { geometry, report } = region;
   const saved = await ds.transaction(async (m) => {
     const repo = m.getRepository(Region);
+    // Two uploads at once to one project: the second waits here, so exactly one region stays current.
+    await m.query('SELECT id FROM map_projects WHERE id = ? FOR UPDATE', [project.id]);
     await repo.update({ projectId: project.id, studioId: actor.studioId, isCurrent: true }, { isCurrent: false });
     const row = await repo.save(
       repo.create({

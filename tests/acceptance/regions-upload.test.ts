@@ -143,6 +143,16 @@ describe('accepted formats', () => {
   });
 });
 
+describe('concurrent uploads', () => {
+  it('three uploads at once leave exactly one current region', async () => {
+    const file = fx.fixture('cote-divoire-utm30n-cp1252.zip');
+    const results = await Promise.all([1, 2, 3].map(() => upload(s.cartographer, '/regions', file, 'civ.zip')));
+    expect(results.map((r) => r.status)).toEqual([201, 201, 201]);
+    const current = await t.deps.dataSource.getRepository(Region).countBy({ projectId, isCurrent: true });
+    expect(current).toBe(1);
+  });
+});
+
 describe('malformed files: a clear 4xx and nothing stored', () => {
   const cases: [string, () => Promise<Buffer> | Buffer, string, number, RegExp][] = [
     ['truncated .shp', fx.truncatedShp, 'michigan.zip', 422, /michigan\.shp is truncated/],
