@@ -1,3 +1,4 @@
+import os from 'node:os';
 import { parentPort } from 'node:worker_threads';
 import type { ResolvedDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, createFactorEvaluator, type FactorEvaluator } from '../../shared/engine/evaluator';
@@ -11,6 +12,18 @@ export type WorkerRequest =
   | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
   | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string }
   | { id: number; kind: 'score'; resolved: ResolvedDefinition; samples: RegionSamples; region?: PreparedRegion };
+
+/**
+ * Pool threads do background maths (audits, batch factors): they run at nice 10 so that, on a
+ * small machine, the HTTP thread of the same process keeps answering promptly while audits run.
+ * On Linux the nice value is per thread, so this lowers only this thread. Best effort.
+ */
+const POOL_THREAD_NICE = 10;
+try {
+  os.setPriority(0, POOL_THREAD_NICE);
+} catch {
+  // not permitted here; run at the normal priority
+}
 
 const evaluators = new Map<string, FactorEvaluator>();
 const lineProcessors = new Map<string, (text: string) => FactorLinesResult>();
