@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { resolveDefinition } from './definition';
 import { factorsAt } from './factors';
+import { projectPoints } from './project';
 
 describe('resolveDefinition', () => {
   it('reads PROJ strings, filling the defaults proj4 needs (+x_0 +y_0 +lat_0 +lon_0)', () => {
@@ -18,6 +19,10 @@ describe('resolveDefinition', () => {
       const f = factorsAt(resolveDefinition(def), 5, 10);
       expect(f.defined, def).toBe(true);
     }
+  });
+  it('keeps false eastings and northings in projected coordinates (as `proj` prints them)', () => {
+    expect(projectPoints(resolveDefinition('+proj=utm +zone=33 +south'), [[15, 0]])[0]).toEqual([500000, 10000000]);
+    expect(projectPoints(resolveDefinition('EPSG:3035'), [[10, 52]])[0]).toEqual([4321000, 3210000]);
   });
   it('treats +R, and +a alone, as a sphere', () => {
     expect(resolveDefinition('+proj=merc +R=6371000').ellipsoid).toEqual({ aM: 6371000, es: 0 });
