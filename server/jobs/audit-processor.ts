@@ -52,16 +52,22 @@ export async function processAudit(
     if (!settings.candidates.length) throw new Error('it has no candidates.');
 
     let written = 0;
+    // Reports may come from work running side by side: writes go one after another, rising only.
+    let writes: Promise<unknown> = Promise.resolve();
     const result = await ctx.engine.scoreCandidates(
       { geometry: region.geometry as never, candidates: settings.candidates, samples: settings.samples, seed: settings.seed },
-      async (fraction) => {
-        if (fraction - written < PROGRESS_STEP && fraction < 1) return;
+      (fraction) => {
+        if (fraction - written < PROGRESS_STEP && fraction < 1) return writes.then(() => {});
         written = fraction;
         const p = Math.min(0.99, fraction);
-        await audits.update({ id: auditId, status: 'running' }, { progress: p });
-        await onProgress(p);
+        writes = writes.then(async () => {
+          await audits.update({ id: auditId, status: 'running' }, { progress: p });
+          await onProgress(p);
+        });
+        return writes.then(() => {});
       },
     );
+    await writes;
 
     const finished = await db.transaction(async (tx) => {
       const row = await tx.getRepository(Audit).findOne({ where: { id: auditId }, lock: { mode: 'pessimistic_write' } });

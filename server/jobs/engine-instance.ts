@@ -40,15 +40,29 @@ export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress
   await onProgress(SAMPLING_SHARE);
   const n = samples.count;
   const total = input.candidates.length * n;
-  const out: CandidateResult[] = [];
-  for (const [ci, cand] of input.candidates.entries()) {
-    const resolved = resolveDefinition(cand.definition);
+  let doneSamples = 0;
+  /** A candidate's factors, block by block on the pool, reporting progress as blocks finish. */
+  const factorsOf = async (ci: number) => {
+    const resolved = resolveDefinition(input.candidates[ci].definition);
     const factors = allocFactorArrays(n);
     for (let start = 0; start < n; start += BLOCK) {
       const end = Math.min(n, start + BLOCK);
       const r = await pool.factors(resolved, samples.lonDeg.subarray(start, end), samples.latDeg.subarray(start, end));
       for (const key of FACTOR_KEYS) factors[key].set(r[key], start);
-      await onProgress(SAMPLING_SHARE + (1 - SAMPLING_SHARE) * ((ci * n + end) / total));
+      doneSamples += end - start;
+      await onProgress(SAMPLING_SHARE + (1 - SAMPLING_SHARE) * (doneSamples / total));
+    }
+    return { resolved, factors };
+  };
+  const out: CandidateResult[] = [];
+  // One candidate ahead: the threads compute the next candidate's factors while this thread forms
+  // the current one's scorecard (at most two candidates' factors are held at once).
+  let next = factorsOf(0);
+  for (const [ci, cand] of input.candidates.entries()) {
+    const { resolved, factors } = await next;
+    if (ci + 1 < input.candidates.length) {
+      next = factorsOf(ci + 1);
+      next.catch(() => {}); // awaited on the next turn; an error here must not go unhandled meanwhile
     }
     if (!factors.s.some((v) => v > 0)) {
       throw new Error(`${cand.label} is undefined over the whole region, so it cannot map it; remove it from the audit or change its centre.`);
