@@ -11,7 +11,11 @@ import { createFactorLineProcessor, type FactorLinesResult } from './factor-line
 export type WorkerRequest =
   | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
   | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string }
-  | { id: number; kind: 'score'; resolved: ResolvedDefinition; samples: RegionSamples; region?: PreparedRegion };
+  | { id: number; kind: 'score'; resolved: ResolvedDefinition; dataset: number; samples?: RegionSamples; region?: PreparedRegion };
+
+/** Samples and regions already received, by dataset id (the pool sends each once per worker). */
+const datasets = new Map<number, { samples: RegionSamples; region?: PreparedRegion }>();
+const KEEP_DATASETS = 4;
 
 /**
  * Pool threads do background maths (audits, batch factors): they run at nice 10 so that, on a
@@ -39,7 +43,13 @@ function handle(msg: WorkerRequest): void {
       return;
     }
     if (msg.kind === 'score') {
-      parentPort!.postMessage({ id: msg.id, ok: true, result: scoreCandidate(msg.resolved, msg.samples, msg.region) });
+      if (msg.samples) {
+        datasets.set(msg.dataset, { samples: msg.samples, region: msg.region });
+        while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
+      }
+      const data = datasets.get(msg.dataset);
+      if (!data) throw new Error(`dataset ${msg.dataset} is not in this worker any more`);
+      parentPort!.postMessage({ id: msg.id, ok: true, result: scoreCandidate(msg.resolved, data.samples, data.region) });
       return;
     }
     let ev = evaluators.get(key);

@@ -15,6 +15,8 @@ type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
 interface Slot {
   worker: Worker;
   busy: number;
+  /** Dataset ids this worker holds, oldest first (it keeps the last four). */
+  datasets: number[];
 }
 
 /**
@@ -24,6 +26,8 @@ interface Slot {
 export class FactorPool {
   private nextId = 1;
   private readonly pending = new Map<number, Pending>();
+  private nextDataset = 1;
+  private readonly datasetIds = new WeakMap<RegionSamples, number>();
 
   private constructor(private readonly slots: Slot[]) {
     for (const slot of slots) {
@@ -50,7 +54,7 @@ export class FactorPool {
       Array.from({ length: Math.max(1, size) }, () => {
         const worker = new Worker(url);
         return new Promise<Slot>((resolve, reject) => {
-          worker.once('message', () => resolve({ worker, busy: 0 }));
+          worker.once('message', () => resolve({ worker, busy: 0, datasets: [] }));
           worker.once('error', reject);
         });
       }),
@@ -58,12 +62,16 @@ export class FactorPool {
     return new FactorPool(slots);
   }
 
+  private leastBusy(): Slot {
+    return this.slots.reduce((best, s) => (s.busy < best.busy ? s : best));
+  }
+
   get size(): number {
     return this.slots.length;
   }
 
-  private send<T>(req: WithoutId<WorkerRequest>, transfer: ArrayBuffer[] = []): Promise<T> {
-    const slot = this.slots.reduce((best, s) => (s.busy < best.busy ? s : best));
+  private send<T>(req: WithoutId<WorkerRequest>, transfer: ArrayBuffer[] = [], chosen?: Slot): Promise<T> {
+    const slot = chosen ?? this.leastBusy();
     const id = this.nextId++;
     slot.busy++;
     return new Promise<T>((resolve, reject) => {
@@ -101,7 +109,16 @@ export class FactorPool {
 
   /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
   score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
-    return this.send({ kind: 'score', resolved, samples, region });
+    // The samples and region travel to each worker once; later candidates refer to them by id.
+    let dataset = this.datasetIds.get(samples);
+    if (dataset === undefined) this.datasetIds.set(samples, (dataset = this.nextDataset++));
+    const slot = this.leastBusy();
+    const known = slot.datasets.includes(dataset);
+    if (!known) {
+      slot.datasets.push(dataset);
+      if (slot.datasets.length > 4) slot.datasets.shift();
+    }
+    return this.send({ kind: 'score', resolved, dataset, ...(known ? {} : { samples, region }) }, [], slot);
   }
 
   /** Terminates the workers. */
