@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import type { Express } from 'express';
@@ -38,6 +39,7 @@ let t: Awaited<ReturnType<typeof createTestApp>>;
 const procs: Proc[] = [];
 
 beforeAll(async () => {
+  fs.rmSync(LOGS, { recursive: true, force: true }); // this run's process logs only
   t = await createTestApp();
 });
 afterAll(async () => {
