@@ -17,14 +17,15 @@ import { createTestApp, type Client } from '../support/test-app.js';
  * exactly once — one scorecard per candidate, one completed BullMQ job — and at no moment, polled
  * through the API and straight from the database, is a partial set of scorecards visible.
  */
-const PREFIX = `${process.env.WARPMETER_QUEUE_PREFIX}-kill-${randomBytes(3).toString('hex')}`;
-const LOGS = path.join(ROOT, 'tests/.tmp/faults-processes');
+const RUN_TAG = randomBytes(3).toString('hex');
+const PREFIX = `${process.env.WARPMETER_QUEUE_PREFIX}-kill-${RUN_TAG}`;
+const LOGS = path.join(ROOT, 'tests/.tmp', `faults-processes-${RUN_TAG}`);
 const env = {
   WARPMETER_QUEUE_PREFIX: PREFIX,
   // Short locks so a dead worker's job is handed on within seconds (production keeps 10 s / 5 s).
   WARPMETER_JOB_LOCK_MS: '3000',
   WARPMETER_JOB_STALL_CHECK_MS: '1000',
-  WARPMETER_DATA_DIR: path.join(ROOT, 'tests/.tmp/faults-processes/files'),
+  WARPMETER_DATA_DIR: path.join(LOGS, 'files'),
   WARPMETER_RATE_LIMIT_SCALE: '10',
   LOG_LEVEL: 'info',
 };
@@ -39,12 +40,12 @@ let t: Awaited<ReturnType<typeof createTestApp>>;
 const procs: Proc[] = [];
 
 beforeAll(async () => {
-  fs.rmSync(LOGS, { recursive: true, force: true }); // this run's process logs only
   t = await createTestApp();
 });
 afterAll(async () => {
   for (const p of procs) await killHard(p);
   await t.close();
+  fs.rmSync(LOGS, { recursive: true, force: true });
 });
 
 async function startServer(port: number, n: number) {
