@@ -6,7 +6,10 @@ set -euo pipefail
 missing=()
 for pair in "$@"; do
   cmd=${pair%%:*}; pkg=${pair#*:}
-  if ! command -v "$cmd" >/dev/null 2>&1 && [ ! -x "$cmd" ]; then missing+=("$pkg"); fi
+  case "$cmd" in
+    /*) [ -e "$cmd" ] || missing+=("$pkg") ;;              # a file the package installs
+    *) command -v "$cmd" >/dev/null 2>&1 || missing+=("$pkg") ;;  # a command on PATH
+  esac
 done
 [ ${#missing[@]} -eq 0 ] && exit 0
 echo "warpmeter: installing Debian packages: ${missing[*]}" >&2
