@@ -6,16 +6,12 @@
  * and beside a reference measured in the same run: the engine scoring the same 8 candidates in
  * one thread, and the 1024² image's share of a plain sharp PNG encode of the same size.
  */
-import { execFileSync } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import mysql from 'mysql2/promise';
 import sharp from 'sharp';
 import type { BenchRow, BenchSection } from './run';
 
-const ROOT = path.resolve(import.meta.dirname, '../..');
 const DEFINITIONS = [
   '+proj=tmerc +lat_0=0 +lon_0=-71 +k_0=0.9996 +x_0=500000 +y_0=10000000 +ellps=WGS84',
   '+proj=utm +zone=19 +south +ellps=WGS84',
@@ -33,19 +29,10 @@ const ms = (t0: number) => performance.now() - t0;
 
 /** A throw-away database, queue prefix and data directory, so the bench touches nothing else. */
 async function benchEnvironment() {
-  execFileSync('bash', [path.join(ROOT, 'server/scripts/services.sh'), 'up'], { stdio: 'inherit', env: { ...process.env, WARPMETER_NO_FAKES: '1' } });
-  const tag = `${Date.now().toString(36)}_${randomBytes(3).toString('hex')}`;
-  const { loadConfig } = await import('../../server/config.js');
-  const { createDataSource } = await import('../../server/data-source.js');
+  const { createFreshDatabase } = await import('../support/fresh-database.js');
   const { startFakeSmtp } = await import('../../server/fakes/smtp.js');
-  const base = loadConfig().db;
-  const dbName = `wm_bench_${tag}`;
-  const admin = await mysql.createConnection({ host: base.host, port: base.port, user: base.user, password: base.password });
-  await admin.query(`CREATE DATABASE \`${dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-  const ds = createDataSource({ ...base, database: dbName });
-  await ds.initialize();
-  await ds.runMigrations({ transaction: 'each' });
-  await ds.destroy();
+  const db = await createFreshDatabase('wm_bench');
+  const { dbName, tag } = db;
   const smtp = await startFakeSmtp();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'wm-bench-'));
   Object.assign(process.env, {
@@ -59,8 +46,7 @@ async function benchEnvironment() {
   return {
     async close() {
       await smtp.close();
-      await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
-      await admin.end();
+      await db.drop();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };

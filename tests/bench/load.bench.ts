@@ -13,16 +13,12 @@
  * load average closes the table. Nothing here asserts a time. WM_BENCH_LOAD_SECONDS sets the run
  * length (default 10), WM_BENCH_PROFILE=<dir> writes the server's CPU profile there.
  */
-import { execFileSync } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import mysql from 'mysql2/promise';
 import type { BenchRow, BenchSection } from './run';
 
-const ROOT = path.resolve(import.meta.dirname, '../..');
 const CONNECTIONS = 50;
 const SECONDS = Number(process.env.WM_BENCH_LOAD_SECONDS ?? 10);
 const TARGET = { jsonRps: 300, jsonP99Ms: 50, heatmapRps: 200 };
@@ -39,18 +35,9 @@ const DEFINITIONS = [
 
 /** A database, queue prefix and data directory of this bench's own. */
 async function loadEnvironment() {
-  execFileSync('bash', [path.join(ROOT, 'server/scripts/services.sh'), 'up'], { stdio: 'inherit', env: { ...process.env, WARPMETER_NO_FAKES: '1' } });
-  const tag = `${Date.now().toString(36)}_${randomBytes(3).toString('hex')}`;
-  const { loadConfig } = await import('../../server/config.js');
-  const { createDataSource } = await import('../../server/data-source.js');
-  const base = loadConfig().db;
-  const dbName = `wm_load_${tag}`;
-  const admin = await mysql.createConnection({ host: base.host, port: base.port, user: base.user, password: base.password });
-  await admin.query(`CREATE DATABASE \`${dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-  const ds = createDataSource({ ...base, database: dbName });
-  await ds.initialize();
-  await ds.runMigrations({ transaction: 'each' });
-  await ds.destroy();
+  const { createFreshDatabase } = await import('../support/fresh-database.js');
+  const db = await createFreshDatabase('wm_load');
+  const { dbName, tag } = db;
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'wm-load-'));
   const env = {
     WARPMETER_DB_NAME: dbName,
@@ -63,8 +50,7 @@ async function loadEnvironment() {
     env,
     dir,
     async close() {
-      await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
-      await admin.end();
+      await db.drop();
       fs.rmSync(dir, { recursive: true, force: true });
     },
   };
