@@ -24,7 +24,7 @@ vi.mock('sharp', async (importOriginal) => {
   const wrapped = (...args: unknown[]) => {
     const img = real(...args);
     if (!fault.sharp) return img;
-    return { png: () => ({ toBuffer: () => Promise.reject(new Error('VipsForeignSave: out of memory in /work/main/node_modules/sharp')) }) };
+    return { png: () => ({ toBuffer: () => Promise.reject(new Error('VipsForeignSave: out of memory in /srv/app/node_modules/sharp')) }) };
   };
   return { default: Object.assign(wrapped, real) };
 });
@@ -78,7 +78,7 @@ const expectCleanError = (res: { status: number; body: { error?: { code?: string
   expect(res.status).toBeGreaterThanOrEqual(500);
   expect(res.body.error?.code).toEqual(expect.any(String));
   expect(res.body.error?.message).toEqual(expect.any(String));
-  expect(res.text).not.toMatch(/Vips|node_modules|\/work\/|\n\s+at /);
+  expect(res.text).not.toMatch(/Vips|node_modules|\/srv\/app\/|\n\s+at /);
 };
 
 describe('heatmap faults', () => {

@@ -27,7 +27,7 @@ const ROOT = path.resolve(import.meta.dirname, '../..');
 const label = (s: RouteSpec) => `${s.method.toUpperCase()} ${s.path}`;
 const concrete = (p: string) => `/api${p.replace(/:(\w+)/g, '1')}`;
 /** Signs of an internal error leaking out: stack frames, source paths, driver names. */
-const INTERNALS = /\n\s+at |\.ts:\d+|node_modules|\/work\/|server\/|ER_[A-Z_]+|TypeORM|QueryFailedError|SELECT |stack/;
+const INTERNALS = /\n\s+at |\.ts:\d+|node_modules|\/srv\/app\/|server\/|ER_[A-Z_]+|TypeORM|QueryFailedError|SELECT |stack/;
 
 let t: Awaited<ReturnType<typeof createTestApp>>;
 let s: StudioFixture;
@@ -124,7 +124,7 @@ describe('answers without internals', () => {
       c.csrf = up.body.csrfToken;
       // A bug deep in a service: the repository throws with internal details in its message.
       const real = deps.dataSource.getRepository.bind(deps.dataSource);
-      const secretDetail = `SELECT secret_column FROM internal_table /work/main/server/x.ts:12 ${randomBytes(4).toString('hex')}`;
+      const secretDetail = `SELECT secret_column FROM internal_table /srv/app/server/x.ts:12 ${randomBytes(4).toString('hex')}`;
       (deps.dataSource as { getRepository: unknown }).getRepository = (e: unknown) => {
         if ((e as { name?: string }).name === 'MapProject') throw new TypeError(secretDetail);
         return real(e as never);
