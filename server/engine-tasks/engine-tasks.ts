@@ -59,7 +59,7 @@ export async function runEngineTask(task: EngineTask): Promise<EngineTaskResult>
   }
 }
 
-/** What services ask to run tasks: the worker thread in the app, inline in the seed and CLI. */
+/** What services ask to run tasks: the worker thread in the app, inline in the demo seeding and the CLI. */
 export interface EngineRunner {
   run<K extends EngineTask['kind']>(task: Extract<EngineTask, { kind: K }>): Promise<Extract<EngineTaskResult, { kind: K }>>;
 }

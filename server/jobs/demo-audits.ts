@@ -15,7 +15,7 @@ export async function seedDemoAudits(ctx: DemoContext): Promise<void> {
   const ds = ctx.ds;
   const projects = await ds.getRepository(MapProject).find({ where: { studioId: ctx.studioId }, order: { id: 'ASC' } });
   const logger = pino({ level: process.env.LOG_LEVEL ?? 'warn' });
-  // Close the engine's threads afterwards only if this step started them (the seed runs in its own process).
+  // Close the engine's threads afterwards only if this step started them (demo seeding runs in its own process).
   const wasRunning = sharedAuditEngineRunning();
   let opened = false;
   try {

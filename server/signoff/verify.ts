@@ -9,7 +9,7 @@ import { sealRecord, sha256Hex, type SignOffRecord } from './record.js';
 
 /**
  * Re-runs the audit of the approved candidate from nothing but the stored record: the region
- * geometry, the definition as the audit saw it, the sample count and the seed. Then rebuilds the
+ * geometry, the definition as the audit saw it, the sample count and the sampling seed. Then rebuilds the
  * record with the fresh scorecard and hashes it again. Reproducible numbers give the same hash.
  */
 export async function verifyRecord(signOff: SignOff, engine: AuditEngine, currentEngineVersion: string): Promise<VerifyResult> {

@@ -17,7 +17,7 @@ const fixture = (name: string) => JSON.parse(readFileSync(new URL(`../../fixture
 const box = (w: number, s: number, e: number, n: number): RegionInput => ({ type: 'Polygon', coordinates: [[[w, s], [e, s], [e, n], [w, n], [w, s]]] });
 
 describe('sampleRegion', () => {
-  it('is deterministic for a seed and count, and changes with the seed', () => {
+  it('is deterministic for a seed and count, and changes with another seed', () => {
     const a = sampleRegion(fixture('italy'), { count: 3000, seed: 5 });
     const b = sampleRegion(fixture('italy'), { count: 3000, seed: 5 });
     const c = sampleRegion(fixture('italy'), { count: 3000, seed: 6 });

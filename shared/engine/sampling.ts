@@ -38,7 +38,7 @@ export interface SampleOptions {
  * Samples a region (GeoJSON Polygon/MultiPolygon, lon/lat degrees) with equal ground area per
  * sample on the ellipsoid. The region's frame is gridded in (λ, sin β) — β the authalic latitude,
  * so all cells have equal area (Snyder 1987, eq. 3-11 and ch. 10); points of the R2 sequence,
- * offset by the seed, are spread uniformly over the cells that touch the region (the first
+ * offset by the sampling seed, are spread uniformly over the cells that touch the region (the first
  * coordinate picks the cell and its position across, the second the position up), and those
  * inside the region kept until count are found.
  * Deterministic for a given region, count and seed.

@@ -23,7 +23,7 @@ import { createTestApp, type Client } from '../support/test-app.js';
  * generated malformed path parameters, queries and bodies — from the route's zod schema where it
  * declares one (RouteSpec.body/query) or where the shared schema is known here, else arbitrary
  * JSON — and in the wrong content types. No answer may be a 5xx; every 4xx carries an error code
- * and a message. fast-check prints the seed and the smallest failing request when one fails.
+ * and a message. fast-check prints its random seed and the smallest failing request when one fails.
  */
 const KNOWN: Record<string, { body?: ZodType; query?: ZodType }> = {
   'POST /auth/sign-up': { body: signUpSchema },

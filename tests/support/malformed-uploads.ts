@@ -6,7 +6,7 @@ import * as fx from '../fixtures/make-upload-fixtures.js';
  * (fixtures/regions/): random bytes, truncated and bit-flipped copies of the shapefile zips,
  * GeoJSON and TopoJSON, shapefile parts with broken headers re-zipped, absurd coordinates, huge
  * vertex counts, deeply nested JSON, zip-structure attacks, and wrong multipart shapes. Each case
- * says how it is sent; the seed makes a failing case reproducible.
+ * says how it is sent; a fixed random seed makes a failing case reproducible.
  */
 export interface UploadCase {
   kind: string;
