@@ -1,19 +1,11 @@
-import type { Request, Response } from 'express';
+import type { Response } from 'express';
 import { inviteSchema, updateMemberSchema } from '../../shared/api/people.schema.js';
 import type { AppDeps } from '../deps.js';
-import { notFound } from '../http/errors.js';
 import type { RouteSpec } from '../http/route-table.js';
 import { inviteLimiters } from '../middleware/rate-limit.js';
 import { createInvitation, revokeInvitation } from '../services/invitations.service.js';
 import { listPeople, updateMember } from '../services/people.service.js';
-
-/** A positive integer path parameter; anything else is a 404, like an id that does not exist. */
-export function idParam(req: Request, name: string, what: string): number {
-  const raw = String(req.params[name] ?? '');
-  const id = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
-  if (!Number.isSafeInteger(id) || id > 2_147_483_647) throw notFound(what);
-  return id;
-}
+import { idParam } from '../services/project-guard.js';
 
 /** The studio's people, seats and invitations (admins only). */
 export function peopleRoutes(deps: AppDeps): RouteSpec[] {
@@ -43,7 +35,7 @@ export function peopleRoutes(deps: AppDeps): RouteSpec[] {
       access: ['admin'],
       summary: 'Withdraw a pending invitation',
       handler: async (req, res: Response) => {
-        await revokeInvitation(deps.dataSource, req.actor!, idParam(req, 'invitationId', 'That invitation'));
+        await revokeInvitation(deps.dataSource, req.actor!, idParam(req.params.invitationId, 'That invitation'));
         res.status(204);
       },
     },
@@ -53,7 +45,7 @@ export function peopleRoutes(deps: AppDeps): RouteSpec[] {
       access: ['admin'],
       summary: "Change a member's role or status",
       handler: (req) =>
-        updateMember(deps.dataSource, req.actor!, idParam(req, 'membershipId', 'That member'), updateMemberSchema.parse(req.body)),
+        updateMember(deps.dataSource, req.actor!, idParam(req.params.membershipId, 'That member'), updateMemberSchema.parse(req.body)),
     },
   ];
 }

@@ -32,9 +32,13 @@ export async function loadProjectFor(
   return project;
 }
 
-/** Parses a numeric route parameter; anything else is a 404 (not a 500). */
+/**
+ * Parses an id route parameter: a positive decimal integer that fits MariaDB's INT. Anything else
+ * ("1.0", "1e3", "+1", "") is a 404, like an id that does not exist, never a 500.
+ */
 export function idParam(value: unknown, what = 'That item'): number {
-  const n = Number(value);
-  if (!Number.isInteger(n) || n <= 0 || n > 2 ** 31) throw notFound(what);
-  return n;
+  const raw = String(value ?? '');
+  const id = /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : NaN;
+  if (!Number.isSafeInteger(id) || id > 2_147_483_647) throw notFound(what);
+  return id;
 }
