@@ -5,10 +5,10 @@ import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import session from 'express-session';
-import MySQLStoreFactory from 'express-mysql-session';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './deps.js';
 import { buildRouter } from './http/route-table.js';
+import { createSessionStore } from './http/session-store.js';
 import { csrfCheck } from './middleware/csrf.js';
 import { errorHandler, notFoundHandler } from './middleware/error-handler.js';
 import { loadActor } from './middleware/load-actor.js';
@@ -69,18 +69,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
 
-  const MySQLStore = MySQLStoreFactory(session as never);
-  const store = new MySQLStore({
-    host: config.db.host,
-    port: config.db.port,
-    user: config.db.user,
-    password: config.db.password,
-    database: config.db.database,
-    createDatabaseTable: false,
-    clearExpired: true,
-    checkExpirationInterval: 15 * 60 * 1000,
-    connectionLimit: 10,
-  } as never);
+  const store = createSessionStore(deps.dataSource);
   deps.services.sessionStore = store;
   throttleTouches(store as unknown as TouchingStore);
 

@@ -1,16 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { DataSource } from 'typeorm';
 import { Membership, User } from '../entities/index.js';
-
-interface ActorRow {
-  id: number;
-  userId: number;
-  studioId: number;
-  role: Membership['role'];
-  status: Membership['status'];
-  email: string;
-  name: string;
-}
+import { sessionMemberOf, type SessionMemberRow } from '../http/session-store.js';
 
 /** The actor's membership and user in one indexed join; table names from the entities' metadata. */
 function actorSql(ds: DataSource): string {
@@ -22,7 +13,9 @@ function actorSql(ds: DataSource): string {
 
 /**
  * Reads the signed-in user's active membership on every request, so a role change or a
- * deactivation takes effect at once rather than at the next sign-in.
+ * deactivation takes effect at once rather than at the next sign-in. The session store reads it
+ * in the same query as the session (see session-store.ts); the separate query here is for a
+ * session that did not come from that store.
  */
 export function loadActor(ds: DataSource): RequestHandler {
   let sql: string | undefined;
@@ -30,10 +23,9 @@ export function loadActor(ds: DataSource): RequestHandler {
     try {
       const membershipId = req.session?.membershipId;
       if (!membershipId) return next();
-      // One indexed join per request, as a plain query: this runs before every signed-in route,
-      // and the ORM's find machinery cost more than the query itself under load.
-      const [m] = (await ds.query((sql ??= actorSql(ds)), [membershipId])) as ActorRow[];
-      if (!m || m.status !== 'active' || m.userId !== req.session.userId) {
+      let m = sessionMemberOf(req);
+      if (m === undefined) [m] = (await ds.query((sql ??= actorSql(ds)), [membershipId])) as SessionMemberRow[];
+      if (!m || m.id !== membershipId || m.status !== 'active' || m.userId !== req.session.userId) {
         delete req.session.userId;
         delete req.session.membershipId;
         return next();
