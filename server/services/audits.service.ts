@@ -6,7 +6,8 @@ import {
   type AuditSummary,
   type StartAuditInput,
 } from '../../shared/api/audits.schema.js';
-import { ActivityEvent, Audit, Candidate, MapProject, Region, Scorecard } from '../entities/index.js';
+import { isStaffRole } from '../../shared/api/roles.js';
+import { ActivityEvent, Audit, Candidate, MapProject, ProjectAccess, Region, Scorecard } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { conflict, notFound, unavailable, validationFailed } from '../http/errors.js';
 import { readSettings, type AuditCandidateSnapshot, type StoredAuditSettings } from '../jobs/audit-settings.js';
@@ -144,14 +145,24 @@ export async function listAudits(db: DataSource, actor: Actor, projectId: number
   return rows.map(auditSummary);
 }
 
-/** Loads an audit the actor may read: its project's guard decides (404 for other studios and unshared clients). */
+/**
+ * Loads an audit the actor may read, with its project, in one query: the same rules as the
+ * project guard (other studios' audits and, for client reviewers, audits of projects not shared
+ * with them are simply not found). Pictures, exports and the scorecard page all start here.
+ */
 export async function loadAuditFor(db: DataSource, actor: Actor, auditId: number): Promise<{ audit: Audit; project: MapProject }> {
-  const audit = await db.getRepository(Audit).findOneBy({ id: auditId, studioId: actor.studioId });
-  if (!audit) throw notFound('That audit');
-  const project = await loadProjectFor(db, actor, audit.projectId, 'read').catch(() => {
-    throw notFound('That audit');
-  });
-  return { audit, project };
+  const qb = db
+    .getRepository(Audit)
+    .createQueryBuilder('a')
+    .innerJoinAndMapOne('a.project', MapProject, 'p', 'p.id = a.projectId AND p.studioId = a.studioId')
+    .where('a.id = :auditId AND a.studioId = :studioId', { auditId, studioId: actor.studioId });
+  if (!isStaffRole(actor.role)) {
+    qb.innerJoin(ProjectAccess, 'pa', 'pa.projectId = p.id AND pa.userId = :userId', { userId: actor.userId });
+  }
+  const found = (await qb.getOne()) as (Audit & { project?: MapProject }) | null;
+  if (!found?.project) throw notFound('That audit');
+  const { project, ...rest } = found;
+  return { audit: Object.assign(new Audit(), rest), project };
 }
 
 export async function getAudit(db: DataSource, actor: Actor, auditId: number): Promise<AuditDetail> {
