@@ -2,16 +2,23 @@ import os from 'node:os';
 import { parentPort } from 'node:worker_threads';
 import type { ResolvedDefinition } from '../../shared/engine/definition';
 import { allocFactorArrays, createFactorEvaluator, type FactorEvaluator } from '../../shared/engine/evaluator';
-import type { PreparedRegion } from '../../shared/engine/region/prepare';
-import type { RegionSamples } from '../../shared/engine/sampling';
+import type { RegionInput } from '../../shared/engine/region/geojson';
+import { prepareRegion, type PreparedRegion } from '../../shared/engine/region/prepare';
+import { sampleRegion, type RegionSamples } from '../../shared/engine/sampling';
 import { scoreCandidate } from '../../shared/engine/scorecard';
+import { scoreAuditCandidate } from './audit-candidate';
 import { createFactorLineProcessor, type FactorLinesResult } from './factor-lines';
 
 /** Messages the pool sends to a worker. */
 export type WorkerRequest =
   | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
   | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string }
-  | { id: number; kind: 'score'; resolved: ResolvedDefinition; dataset: number; samples?: RegionSamples; region?: PreparedRegion };
+  | { id: number; kind: 'score'; resolved: ResolvedDefinition; dataset: number; samples?: RegionSamples; region?: PreparedRegion }
+  | { id: number; kind: 'sample'; geometry: RegionInput; count: number; seed: number; dataset: number }
+  | {
+      id: number; kind: 'audit'; resolved: ResolvedDefinition; label: string; storedCap: number;
+      dataset: number; samples?: RegionSamples; region?: PreparedRegion;
+    };
 
 /** Samples and regions already received, by dataset id (the pool sends each once per worker). */
 const datasets = new Map<number, { samples: RegionSamples; region?: PreparedRegion }>();
@@ -32,9 +39,27 @@ try {
 const evaluators = new Map<string, FactorEvaluator>();
 const lineProcessors = new Map<string, (text: string) => FactorLinesResult>();
 
+function keepDataset(id: number, samples: RegionSamples, region?: PreparedRegion): void {
+  datasets.set(id, { samples, region });
+  while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
+}
+
+function dataset(id: number) {
+  const data = datasets.get(id);
+  if (!data) throw new Error(`dataset ${id} is not in this worker any more`);
+  return data;
+}
+
 function handle(msg: WorkerRequest): void {
-  const key = msg.resolved.proj4;
   try {
+    if (msg.kind === 'sample') {
+      const region = prepareRegion(msg.geometry);
+      const samples = sampleRegion(region, { count: msg.count, seed: msg.seed });
+      keepDataset(msg.dataset, samples, region);
+      parentPort!.postMessage({ id: msg.id, ok: true, result: { samples, region } });
+      return;
+    }
+    const key = msg.resolved.proj4;
     if (msg.kind === 'lines') {
       let proc = lineProcessors.get(key);
       if (!proc) lineProcessors.set(key, (proc = createFactorLineProcessor(msg.resolved)));
@@ -43,13 +68,18 @@ function handle(msg: WorkerRequest): void {
       return;
     }
     if (msg.kind === 'score') {
-      if (msg.samples) {
-        datasets.set(msg.dataset, { samples: msg.samples, region: msg.region });
-        while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
-      }
-      const data = datasets.get(msg.dataset);
-      if (!data) throw new Error(`dataset ${msg.dataset} is not in this worker any more`);
+      if (msg.samples) keepDataset(msg.dataset, msg.samples, msg.region);
+      const data = dataset(msg.dataset);
       parentPort!.postMessage({ id: msg.id, ok: true, result: scoreCandidate(msg.resolved, data.samples, data.region) });
+      return;
+    }
+    if (msg.kind === 'audit') {
+      if (msg.samples) keepDataset(msg.dataset, msg.samples, msg.region);
+      const data = dataset(msg.dataset);
+      const result = scoreAuditCandidate(msg.resolved, data.samples, data.region, msg.storedCap, msg.label, (done) =>
+        parentPort!.postMessage({ id: msg.id, progress: done }),
+      );
+      parentPort!.postMessage({ id: msg.id, ok: true, result }, Object.values(result.fields).map((a) => (a as Float64Array).buffer as ArrayBuffer));
       return;
     }
     let ev = evaluators.get(key);

@@ -33,6 +33,32 @@ describe('FactorPool', () => {
     const r = resolveDefinition('+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10');
     expect(await pool.score(r, samples, region)).toEqual(scoreCandidate(r, samples, region));
   });
+  it('samples a region in a worker and scores audit candidates there exactly as in process, with block progress', async () => {
+    const geometry = { type: 'Polygon' as const, coordinates: [[[-10, 35], [30, 35], [30, 60], [-10, 60], [-10, 35]]] };
+    const region = prepareRegion(geometry);
+    const expectedSamples = sampleRegion(region, { count: 60_000, seed: 4 });
+    const data = await pool.sample(geometry, 60_000, 4);
+    expect(Array.from(data.samples.lonDeg)).toEqual(Array.from(expectedSamples.lonDeg));
+    const defs = ['+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10', 'EPSG:3035', '+proj=merc +lon_0=10'];
+    const progress = defs.map(() => [] as number[]);
+    const results = await Promise.all(
+      defs.map((d, i) => pool.auditCandidate(resolveDefinition(d), d, data, 20_000, (done) => progress[i].push(done))),
+    );
+    defs.forEach((d, i) => {
+      expect(results[i].metrics).toEqual(JSON.parse(JSON.stringify(scoreCandidate(resolveDefinition(d), expectedSamples, region))));
+      // 60 000 samples in blocks of 25 000; every third sample kept for a cap of 20 000.
+      expect(progress[i]).toEqual([25_000, 50_000, 60_000]);
+      expect(results[i].fields.s.length).toBe(20_000);
+      expect(results[i].fields.lonDeg[1]).toBe(expectedSamples.lonDeg[3]);
+    });
+  });
+  it('refuses an audit candidate that is undefined over the whole region, naming it', async () => {
+    const data = await pool.sample({ type: 'Polygon', coordinates: [[[100, -10], [120, -10], [120, 10], [100, 10], [100, -10]]] }, 2000, 1);
+    // Orthographic centred on the far side of the Earth: nothing of the region is visible.
+    await expect(pool.auditCandidate(resolveDefinition('+proj=ortho +lat_0=0 +lon_0=-70 +R=6371000'), 'Far-side orthographic', data, 1000)).rejects.toThrow(
+      /Far-side orthographic is undefined over the whole region/,
+    );
+  });
   it('processes text lines and reports bad ones with their line numbers', async () => {
     const r = await pool.factorLines(resolveDefinition('+proj=merc +R=1'), '10 0\nnot a point\n0 90\n');
     expect(new TextDecoder().decode(r.out)).toBe('1\t1\t1\t0\t1\t1\nnan\tnan\tnan\tnan\tnan\tnan\n');

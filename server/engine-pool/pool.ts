@@ -5,11 +5,13 @@ import { allocFactorArrays, type FactorArrays } from '../../shared/engine/evalua
 import type { PreparedRegion } from '../../shared/engine/region/prepare';
 import type { RegionSamples } from '../../shared/engine/sampling';
 import type { CandidateMetrics } from '../../shared/engine/scorecard';
+import type { RegionInput } from '../../shared/engine/region/geojson';
+import type { AuditCandidateResult } from './audit-candidate';
 import type { FactorLinesResult } from './factor-lines';
 import { bundledWorkerPath } from './worker-bundle';
 import type { WorkerRequest } from './factors-worker';
 
-type Pending = { resolve: (v: unknown) => void; reject: (e: Error) => void };
+type Pending = { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (done: number) => void };
 type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
 
 interface Slot {
@@ -31,9 +33,10 @@ export class FactorPool {
 
   private constructor(private readonly slots: Slot[]) {
     for (const slot of slots) {
-      slot.worker.on('message', (msg: { id: number; ok: boolean; result?: unknown; error?: string }) => {
+      slot.worker.on('message', (msg: { id: number; ok?: boolean; result?: unknown; error?: string; progress?: number }) => {
         const p = this.pending.get(msg.id);
         if (!p) return;
+        if (msg.progress !== undefined) return void p.onProgress?.(msg.progress);
         this.pending.delete(msg.id);
         slot.busy--;
         if (msg.ok) p.resolve(msg.result);
@@ -70,12 +73,12 @@ export class FactorPool {
     return this.slots.length;
   }
 
-  private send<T>(req: WithoutId<WorkerRequest>, transfer: ArrayBuffer[] = [], chosen?: Slot): Promise<T> {
+  private send<T>(req: WithoutId<WorkerRequest>, transfer: ArrayBuffer[] = [], chosen?: Slot, onProgress?: (done: number) => void): Promise<T> {
     const slot = chosen ?? this.leastBusy();
     const id = this.nextId++;
     slot.busy++;
     return new Promise<T>((resolve, reject) => {
-      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
+      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress });
       slot.worker.postMessage({ ...req, id }, transfer);
     });
   }
@@ -107,18 +110,54 @@ export class FactorPool {
     return out;
   }
 
-  /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
-  score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
-    // The samples and region travel to each worker once; later candidates refer to them by id.
+  /** The slot to send a dataset's next job to, and whether that worker already holds the dataset. */
+  private slotFor(samples: RegionSamples): { slot: Slot; dataset: number; known: boolean } {
     let dataset = this.datasetIds.get(samples);
     if (dataset === undefined) this.datasetIds.set(samples, (dataset = this.nextDataset++));
     const slot = this.leastBusy();
     const known = slot.datasets.includes(dataset);
-    if (!known) {
-      slot.datasets.push(dataset);
-      if (slot.datasets.length > 4) slot.datasets.shift();
-    }
+    if (!known) this.remember(slot, dataset);
+    return { slot, dataset, known };
+  }
+
+  private remember(slot: Slot, dataset: number): void {
+    slot.datasets.push(dataset);
+    if (slot.datasets.length > 4) slot.datasets.shift();
+  }
+
+  /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
+  score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
+    // The samples and region travel to each worker once; later candidates refer to them by id.
+    const { slot, dataset, known } = this.slotFor(samples);
     return this.send({ kind: 'score', resolved, dataset, ...(known ? {} : { samples, region }) }, [], slot);
+  }
+
+  /**
+   * Prepares and samples a region in a worker (which keeps the result for the audit's candidates);
+   * the samples and prepared region come back for the other workers.
+   */
+  async sample(geometry: RegionInput, count: number, seed: number): Promise<{ samples: RegionSamples; region: PreparedRegion }> {
+    const slot = this.leastBusy();
+    const dataset = this.nextDataset++;
+    const out = await this.send<{ samples: RegionSamples; region: PreparedRegion }>({ kind: 'sample', geometry, count, seed, dataset }, [], slot);
+    this.datasetIds.set(out.samples, dataset);
+    this.remember(slot, dataset);
+    return out;
+  }
+
+  /**
+   * One audit candidate scored in a worker (see scoreAuditCandidate): its scorecard and stored
+   * fields. `onProgress` hears the samples done so far, block by block.
+   */
+  auditCandidate(
+    resolved: ResolvedDefinition,
+    label: string,
+    data: { samples: RegionSamples; region: PreparedRegion },
+    storedCap: number,
+    onProgress?: (samplesDone: number) => void,
+  ): Promise<AuditCandidateResult> {
+    const { slot, dataset, known } = this.slotFor(data.samples);
+    return this.send({ kind: 'audit', resolved, label, storedCap, dataset, ...(known ? {} : data) }, [], slot, onProgress);
   }
 
   /** Terminates the workers. */
