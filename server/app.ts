@@ -1,10 +1,12 @@
 import 'reflect-metadata';
 import './http/actor.js';
 import fs from 'node:fs';
+import type { IncomingMessage, ServerResponse } from 'node:http';
 import path from 'node:path';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import session from 'express-session';
+import pino from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './deps.js';
 import { buildRouter } from './http/route-table.js';
@@ -40,13 +42,32 @@ function throttleTouches(store: TouchingStore): void {
   };
 }
 
+/** Request headers an access line keeps; the secret ones (cookie, CSRF token) are there to show that they were sent, and LOG_REDACTION masks them. */
+const LOGGED_HEADERS = ['host', 'user-agent', 'referer', 'content-type', 'content-length', 'x-forwarded-for', 'cookie', 'authorization', 'x-csrf-token'];
+
+function accessLogRequest(req: IncomingMessage & { id?: unknown; originalUrl?: string }) {
+  const headers: Record<string, unknown> = {};
+  for (const h of LOGGED_HEADERS) if (req.headers[h] !== undefined) headers[h] = req.headers[h];
+  return { id: req.id, method: req.method, url: req.originalUrl ?? req.url, remoteAddress: req.socket?.remoteAddress, headers };
+}
+
 /** Builds the Express app; never listens (server/index.ts does, tests use supertest). */
 export function createApp(deps: AppDeps): Express {
   const { config } = deps;
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
-  app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(
+    pinoHttp({
+      logger: deps.logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // A short access line: the request's method, address and a few headers, the answer's status.
+      // Every request writes one, so it stays small (the whole header set, traversed by the
+      // redaction on every line, cost more than the project list's query).
+      wrapSerializers: false,
+      serializers: { req: accessLogRequest, res: (res: ServerResponse) => ({ statusCode: res.statusCode }), err: pino.stdSerializers.err },
+    }),
+  );
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -73,15 +73,18 @@ export async function processAudit(
       const row = await tx.getRepository(Audit).findOne({ where: { id: auditId }, lock: { mode: 'pessimistic_write' } });
       if (!row || row.status === 'done') return false;
       await tx.getRepository(Scorecard).delete({ auditId });
-      await tx.getRepository(Scorecard).insert(
-        result.candidates.map((r) => ({
+      // One statement per candidate (each carries a field blob of up to ~2 MB): the database and
+      // this thread work in short steps that other requests can interleave with, instead of one
+      // statement of every blob at once; the transaction still makes them appear together.
+      for (const r of result.candidates) {
+        await tx.getRepository(Scorecard).insert({
           auditId,
           candidateId: r.candidateId,
           studioId: audit.studioId,
           metrics: r.metrics,
           fields: encodeFields(r.fields),
-        })),
-      );
+        });
+      }
       await tx.getRepository(Audit).update(
         { id: auditId },
         { status: 'done', progress: 1, error: null, finishedAt: new Date(), timings: { totalMs: Date.now() - started, ...result.timingsMs } },
