@@ -25,11 +25,13 @@ const datasets = new Map<number, { samples: RegionSamples; region?: PreparedRegi
 const KEEP_DATASETS = 4;
 
 /**
- * Pool threads do background maths (audits, batch factors): they run at nice 10 so that, on a
- * small machine, the HTTP thread of the same process keeps answering promptly while audits run.
- * On Linux the nice value is per thread, so this lowers only this thread. Best effort.
+ * Pool threads do background maths (audits, batch factors): they run at the lowest priority
+ * (nice 19) so that, on a small machine, the HTTP thread of the same process keeps answering
+ * promptly while audits run. On Linux the nice value is per thread, so this lowers only this
+ * thread (and it weighs against the other threads of this process's session; see
+ * background-priority.ts for the separate worker process). Best effort.
  */
-const POOL_THREAD_NICE = 10;
+const POOL_THREAD_NICE = 19;
 try {
   os.setPriority(0, POOL_THREAD_NICE);
 } catch {

@@ -5,6 +5,7 @@ import type { AuditEngine } from './audit-engine.js';
 import { readSettings } from './audit-settings.js';
 import { recordActivity } from '../services/activity.service.js';
 import { encodeFields } from './fields-codec.js';
+import { insertScorecard } from './insert-scorecard.js';
 
 export interface ProcessorContext {
   dataSource: DataSource;
@@ -73,17 +74,11 @@ export async function processAudit(
       const row = await tx.getRepository(Audit).findOne({ where: { id: auditId }, lock: { mode: 'pessimistic_write' } });
       if (!row || row.status === 'done') return false;
       await tx.getRepository(Scorecard).delete({ auditId });
-      // One statement per candidate (each carries a field blob of up to ~2 MB): the database and
+      // One statement per candidate, its field blob (up to ~2 MB) sent as binary: the database and
       // this thread work in short steps that other requests can interleave with, instead of one
       // statement of every blob at once; the transaction still makes them appear together.
       for (const r of result.candidates) {
-        await tx.getRepository(Scorecard).insert({
-          auditId,
-          candidateId: r.candidateId,
-          studioId: audit.studioId,
-          metrics: r.metrics,
-          fields: encodeFields(r.fields),
-        });
+        await insertScorecard(tx, { auditId, candidateId: r.candidateId, studioId: audit.studioId, metrics: r.metrics, fields: encodeFields(r.fields) });
       }
       await tx.getRepository(Audit).update(
         { id: auditId },

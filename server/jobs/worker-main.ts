@@ -2,6 +2,7 @@ import 'reflect-metadata';
 import pino from 'pino';
 import { loadConfig } from '../config.js';
 import { createDataSource } from '../data-source.js';
+import { lowerSessionPriority } from './background-priority.js';
 import { sharedAuditEngine, closeSharedAuditEngine } from './engine-instance.js';
 import { createAuditWorker } from './worker.js';
 
@@ -10,12 +11,16 @@ import { createAuditWorker } from './worker.js';
 // migrate the database: the app does that at start.
 const config = loadConfig();
 const logger = pino({ level: process.env.LOG_LEVEL ?? 'info' });
+// Audits are background work: this process yields the CPU to the web server and the database
+// (WARPMETER_WORKER_NICE=0 keeps the normal priority, e.g. on a machine of its own).
+const workerNice = Number(process.env.WARPMETER_WORKER_NICE ?? 19);
+const backgrounded = workerNice > 0 && lowerSessionPriority(Math.min(19, workerNice));
 const dataSource = createDataSource(config.db);
 await dataSource.initialize();
 const engine = await sharedAuditEngine();
 const concurrency = Math.max(1, Math.min(2, Number(process.env.WARPMETER_WORKER_CONCURRENCY ?? 1) || 1));
 const worker = createAuditWorker(config, { dataSource, logger, engine }, { concurrency });
-worker.on('ready', () => logger.info({ prefix: config.redis.prefix, concurrency }, 'audit worker ready'));
+worker.on('ready', () => logger.info({ prefix: config.redis.prefix, concurrency, backgrounded }, 'audit worker ready'));
 worker.on('completed', (job) => logger.info({ auditId: job.data.auditId }, 'audit finished'));
 
 let stopping = false;

@@ -9,7 +9,7 @@
  * request's due time — see paced-load.ts for why not autocannon's own rate limit), and the JSON
  * runs once more while two audits run in the
  * background (started through the API) — in the app's own worker, then in a separate worker
- * process at nice 10. Each figure is printed beside its target: p99 ≤ 50 ms at ≥ 300 requests/s
+ * process (`npm run worker`, which puts its session in the background: autogroup nice 19). Each figure is printed beside its target: p99 ≤ 50 ms at ≥ 300 requests/s
  * for JSON, ≥ 200 cached heatmaps/s. The server's CPU time per request (from /proc) is printed too:
  * unlike the rates, it does not depend on what else the machine is running, and the machine's
  * load average closes the table. Nothing here asserts a time. WM_BENCH_LOAD_SECONDS sets the run
@@ -278,13 +278,13 @@ const loadSection: BenchSection = {
 
       // The JSON runs again while two audits (8 candidates × 200 000 samples each) run: first in
       // the app process's own worker (the default), then with the app's worker off and the audits
-      // in an `npm run worker` process at a lower CPU priority (nice 10).
+      // in an `npm run worker` process, which lowers its own session's CPU priority.
       rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in the app’s worker')));
       await stopGently(server);
       server = await startAppProcess({ port, env: { ...environment.env, NODE_ENV: 'production', WARPMETER_NO_INPROCESS_WORKER: '1' }, logFile: path.join(environment.dir, 'app-2.log'), nodeArgs });
       serverPid = server.pid;
-      worker = await startWorkerProcess(environment.env, path.join(environment.dir, 'worker.log'), ['nice', '-n', '10']);
-      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in a worker at nice 10')));
+      worker = await startWorkerProcess(environment.env, path.join(environment.dir, 'worker.log'));
+      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in a background worker process')));
       const [l1, l5] = os.loadavg();
       rows.push({ run: `machine load average at the end: ${l1.toFixed(1)} (1 min), ${l5.toFixed(1)} (5 min) on ${os.cpus().length} cores; at the start ${loadAtStart}`, 'req/s': '', 'p50 ms': '', 'p99 ms': '', 'non-2xx/errors': '', target: '', ratio: '' });
     } finally {

@@ -22,6 +22,8 @@ export interface PacedLoadOptions {
   seconds: number;
   connections: number;
   seed?: number;
+  /** When given, receives each answered request's due time (ms since the run started) and latency. */
+  onAnswer?: (dueMs: number, latencyMs: number) => void;
 }
 
 export interface PacedLoadResult {
@@ -68,7 +70,9 @@ export async function pacedLoad(opts: PacedLoadOptions): Promise<PacedLoadResult
         (res) => {
           res.resume();
           res.on('end', () => {
-            latencies.push(performance.now() - dueMs);
+            const latency = performance.now() - dueMs;
+            latencies.push(latency);
+            opts.onAnswer?.(dueMs - start, latency);
             if ((res.statusCode ?? 0) < 200 || (res.statusCode ?? 0) >= 300) non2xx++;
             resolve();
           });
