@@ -4,7 +4,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 
 describe('lowerSessionPriority', () => {
-  it('sets the autogroup nice of a process in a session of its own, leaving the caller’s session alone', () => {
+  it('sets the autogroup nice of a process leading a session of its own, leaving the caller’s session alone', () => {
     const before = existsSync('/proc/self/autogroup') ? readFileSync('/proc/self/autogroup', 'utf8') : '';
     // setsid: the child leads a new session, so its autogroup is its own (sched(7)).
     const script = "import('./server/jobs/background-priority.ts').then((m) => { const ok = m.lowerSessionPriority(19); let g = ''; try { g = require('fs').readFileSync('/proc/self/autogroup', 'utf8'); } catch {} console.log(JSON.stringify({ ok, g })); })";
@@ -12,12 +12,20 @@ describe('lowerSessionPriority', () => {
     expect(r.status, r.stderr).toBe(0);
     const { ok, g } = JSON.parse(r.stdout.trim().split('\n').pop()!) as { ok: boolean; g: string };
     if (before) {
-      expect(ok).toBe(true);
+      expect(ok).toBe('session');
       expect(g).toMatch(/nice 19/);
       expect(readFileSync('/proc/self/autogroup', 'utf8')).toBe(before);
     } else {
-      // A kernel without autogroups: the call says it could not, and nothing breaks.
-      expect(ok).toBe(false);
+      // A kernel without autogroups: only the thread's own nice value changes.
+      expect(ok).toBe('thread');
     }
+  });
+  it('in a session shared with others, lowers only its own thread', () => {
+    const before = existsSync('/proc/self/autogroup') ? readFileSync('/proc/self/autogroup', 'utf8') : '';
+    const script = "import('./server/jobs/background-priority.ts').then((m) => console.log(JSON.stringify({ ok: m.lowerSessionPriority(19), nice: require('os').getPriority(0) })))";
+    const r = spawnSync(process.execPath, ['--import', 'tsx', '-e', script], { encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(0);
+    expect(JSON.parse(r.stdout.trim().split('\n').pop()!)).toEqual({ ok: 'thread', nice: 19 });
+    if (before) expect(readFileSync('/proc/self/autogroup', 'utf8')).toBe(before);
   });
 });

@@ -1,19 +1,38 @@
-import { writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
 
-/**
- * Puts this whole process in the background for the CPU scheduler: the nice value of its
- * scheduling autogroup (Linux, when `kernel.sched_autogroup_enabled` is 1, the default on most
- * distributions) set to 19. With autogroups the kernel first shares the CPU between sessions,
- * and a process's own nice value only weighs against processes of the same session (sched(7),
- * "The autogroup feature") — so `nice npm run worker` started from another terminal, or detached
- * by a service manager, would still take a full share from the web server. Best effort: false
- * where there is no autogroup or it may not be changed.
- */
-export function lowerSessionPriority(nice = 19): boolean {
+/** True when this process leads its own session (Linux: field 6 of /proc/self/stat is the session id). */
+function leadsOwnSession(): boolean {
   try {
-    writeFileSync('/proc/self/autogroup', String(nice));
-    return true;
+    const fields = readFileSync('/proc/self/stat', 'utf8').split(') ')[1].split(' ');
+    return Number(fields[3]) === process.pid;
   } catch {
     return false;
+  }
+}
+
+/**
+ * Puts this process in the background for the CPU scheduler. On Linux with scheduler autogroups
+ * (`kernel.sched_autogroup_enabled` = 1, the default on most distributions) the kernel first
+ * shares the CPU between sessions, and a nice value only weighs against processes of the same
+ * session (sched(7), "The autogroup feature"): so a worker that leads its own session (started by
+ * a service manager, or detached) sets its session's autogroup nice. A worker sharing a session
+ * — e.g. `npm run worker` in a terminal — must not lower the others in it, so it lowers only its
+ * own main thread (its pool threads already run at nice 19). Best effort; returns what it did.
+ */
+export function lowerSessionPriority(nice = 19): 'session' | 'thread' | 'none' {
+  if (leadsOwnSession()) {
+    try {
+      writeFileSync('/proc/self/autogroup', String(nice));
+      return 'session';
+    } catch {
+      // no autogroups here: fall through to this thread's own nice value
+    }
+  }
+  try {
+    os.setPriority(0, nice);
+    return 'thread';
+  } catch {
+    return 'none';
   }
 }

@@ -14,7 +14,7 @@ const logger = pino({ level: process.env.LOG_LEVEL ?? 'info' });
 // Audits are background work: this process yields the CPU to the web server and the database
 // (WARPMETER_WORKER_NICE=0 keeps the normal priority, e.g. on a machine of its own).
 const workerNice = Number(process.env.WARPMETER_WORKER_NICE ?? 19);
-const backgrounded = workerNice > 0 && lowerSessionPriority(Math.min(19, workerNice));
+const backgrounded = workerNice > 0 ? lowerSessionPriority(Math.min(19, workerNice)) : 'none';
 const dataSource = createDataSource(config.db);
 await dataSource.initialize();
 const engine = await sharedAuditEngine();

@@ -20,6 +20,7 @@ function startWorker(): Promise<ChildProcess> {
     env: {
       ...process.env,
       WARPMETER_QUEUE_PREFIX: PREFIX,
+      WARPMETER_WORKER_NICE: '0',
       WARPMETER_JOB_LOCK_MS: '3000',
       WARPMETER_JOB_STALL_CHECK_MS: '1000',
       LOG_LEVEL: 'info',

@@ -125,7 +125,8 @@ export async function startAppProcess(opts: AppProcessOptions): Promise<Proc> {
 
 /** An extra audit worker process (`npm run worker`), waited for until BullMQ says it is ready. */
 export async function startWorkerProcess(env: Record<string, string>, logFile: string, prefix: string[] = []): Promise<Proc> {
-  const p = startNodeProcess('server/jobs/worker-main.ts', { LOG_LEVEL: 'info', ...env }, logFile, [], prefix);
+  // Normal priority unless asked: a test's worker must not starve behind the rest of the suite.
+  const p = startNodeProcess('server/jobs/worker-main.ts', { LOG_LEVEL: 'info', WARPMETER_WORKER_NICE: '0', ...env }, logFile, [], prefix);
   await waitForLog(p, 'audit worker ready');
   return p;
 }
