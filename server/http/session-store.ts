@@ -39,6 +39,17 @@ interface StoredRow {
 
 type Callback = (err: unknown, sess?: session.SessionData | null) => void;
 
+/** The stored session with its member row attached (under a symbol, so it is never saved back); null when missing or expired. */
+function sessionOf(row: StoredRow | undefined): (session.SessionData & WithMember) | null {
+  if (!row || row.expires < Math.round(Date.now() / 1000) || row.data === null) return null;
+  const data = JSON.parse(row.data) as session.SessionData & WithMember;
+  data[MEMBER] =
+    row.mId === null
+      ? null
+      : { id: row.mId, userId: row.mUserId!, studioId: row.studioId!, role: row.role!, status: row.status!, email: row.email!, name: row.name! };
+  return data;
+}
+
 /**
  * express-mysql-session's store on the app's own connection pool, with one change: reading a
  * session also reads its membership and user, joined on the membership id inside the stored
@@ -73,19 +84,12 @@ export function createSessionStore(ds: DataSource) {
       'WHERE s.`session_id` = ?';
 
     override get(sid: string, cb: Callback): void {
-      this.query(this.readSql, [sid]).then(
-        ([rows]) => {
-          const row = rows[0];
-          if (!row || row.expires < Math.round(Date.now() / 1000) || row.data === null) return cb(null, null);
-          const data = JSON.parse(row.data) as session.SessionData & WithMember;
-          data[MEMBER] =
-            row.mId === null
-              ? null
-              : { id: row.mId, userId: row.mUserId!, studioId: row.studioId!, role: row.role!, status: row.status!, email: row.email!, name: row.name! };
-          cb(null, data);
-        },
-        (err) => cb(err),
-      );
+      this.query(this.readSql, [sid])
+        .then(([rows]) => sessionOf(rows[0]))
+        .then(
+          (sess) => cb(null, sess),
+          (err) => cb(err),
+        );
     }
 
     /** Moves the member row from the stored data onto the request (it is never saved back). */

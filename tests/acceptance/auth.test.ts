@@ -160,6 +160,38 @@ describe('accounts and sessions', () => {
   });
 });
 
+describe('the session read (session, membership and user in one query)', () => {
+  let t: Awaited<ReturnType<typeof createTestApp>>;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('sees a role change, a renamed user and a deactivation on the very next request, and never stores the member row in the session', async () => {
+    const s = await createStudioWithRoles(t);
+    const ds = t.deps.dataSource;
+    const me = async () => (await s.editor.get('/api/auth/session')).body;
+    expect((await me()).membership).toMatchObject({ role: 'editor', studioId: s.studioId });
+    const membership = await ds.getRepository(Membership).findOneByOrFail({ studioId: s.studioId, role: 'editor' });
+    // Changed behind the app's back (as another app process would): nothing may be cached.
+    await ds.getRepository(Membership).update(membership.id, { role: 'cartographer' });
+    await ds.getRepository(User).update(membership.userId, { name: 'Renamed Editor' });
+    const after = await me();
+    expect(after.membership).toMatchObject({ role: 'cartographer' });
+    expect(after.user).toMatchObject({ name: 'Renamed Editor' });
+    expect((await s.editor.post('/api/projects', { title: 'Now allowed', clientName: 'C', purpose: 'reference', scaleBand: 'city' })).status).toBe(201);
+    // The stored session holds the ids and the CSRF token only, never the joined member fields.
+    const rows: { data: string }[] = await ds.query('SELECT data FROM sessions WHERE JSON_VALUE(data, "$.membershipId") = ?', [String(membership.id)]);
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) {
+      expect(Object.keys(JSON.parse(r.data)).sort()).toEqual(['cookie', 'csrfToken', 'membershipId', 'userId']);
+      expect(r.data).not.toContain('Renamed Editor');
+    }
+    await ds.getRepository(Membership).update(membership.id, { status: 'deactivated' });
+    expect((await s.editor.get('/api/projects')).status).toBe(401);
+  });
+});
+
 describe('people in several studios', () => {
   let t: Awaited<ReturnType<typeof createTestApp>>;
   beforeAll(async () => {
