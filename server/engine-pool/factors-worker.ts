@@ -14,11 +14,20 @@ export type WorkerRequest =
   | { id: number; kind: 'points'; resolved: ResolvedDefinition; lonDeg: Float64Array; latDeg: Float64Array }
   | { id: number; kind: 'lines'; resolved: ResolvedDefinition; text: string }
   | { id: number; kind: 'score'; resolved: ResolvedDefinition; dataset: number; samples?: RegionSamples; region?: PreparedRegion }
-  | { id: number; kind: 'sample'; geometry: RegionInput; count: number; seed: number; dataset: number }
-  | {
-      id: number; kind: 'audit'; resolved: ResolvedDefinition; label: string; storedCap: number;
-      dataset: number; samples?: RegionSamples; region?: PreparedRegion;
-    };
+  | { id: number; kind: 'sample'; audit: AuditDataset }
+  | { id: number; kind: 'audit'; resolved: ResolvedDefinition; label: string; storedCap: number; audit: AuditDataset };
+
+/**
+ * An audit's region and sampling settings, under a key: each worker prepares and samples the
+ * region itself (the same inputs give the same points), so neither the samples nor the prepared
+ * region ever pass through the thread that serves requests.
+ */
+export interface AuditDataset {
+  key: number;
+  geometry: RegionInput;
+  count: number;
+  seed: number;
+}
 
 /** Samples and regions already received, by dataset id (the pool sends each once per worker). */
 const datasets = new Map<number, { samples: RegionSamples; region?: PreparedRegion }>();
@@ -46,6 +55,20 @@ function keepDataset(id: number, samples: RegionSamples, region?: PreparedRegion
   while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
 }
 
+/** Audit datasets this worker prepared, by key (a few kept; an evicted one is prepared again). */
+const auditDatasets = new Map<number, { samples: RegionSamples; region: PreparedRegion }>();
+
+function auditDataset(a: AuditDataset) {
+  let data = auditDatasets.get(a.key);
+  if (!data) {
+    const region = prepareRegion(a.geometry);
+    data = { region, samples: sampleRegion(region, { count: a.count, seed: a.seed }) };
+    auditDatasets.set(a.key, data);
+    while (auditDatasets.size > KEEP_DATASETS) auditDatasets.delete(auditDatasets.keys().next().value as number);
+  }
+  return data;
+}
+
 function dataset(id: number) {
   const data = datasets.get(id);
   if (!data) throw new Error(`dataset ${id} is not in this worker any more`);
@@ -55,10 +78,7 @@ function dataset(id: number) {
 function handle(msg: WorkerRequest): void {
   try {
     if (msg.kind === 'sample') {
-      const region = prepareRegion(msg.geometry);
-      const samples = sampleRegion(region, { count: msg.count, seed: msg.seed });
-      keepDataset(msg.dataset, samples, region);
-      parentPort!.postMessage({ id: msg.id, ok: true, result: { samples, region } });
+      parentPort!.postMessage({ id: msg.id, ok: true, result: { count: auditDataset(msg.audit).samples.count } });
       return;
     }
     const key = msg.resolved.proj4;
@@ -76,8 +96,7 @@ function handle(msg: WorkerRequest): void {
       return;
     }
     if (msg.kind === 'audit') {
-      if (msg.samples) keepDataset(msg.dataset, msg.samples, msg.region);
-      const data = dataset(msg.dataset);
+      const data = auditDataset(msg.audit);
       const result = scoreAuditCandidate(msg.resolved, data.samples, data.region, msg.storedCap, msg.label, (done) =>
         parentPort!.postMessage({ id: msg.id, progress: done }),
       );

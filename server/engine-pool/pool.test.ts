@@ -33,16 +33,17 @@ describe('FactorPool', () => {
     const r = resolveDefinition('+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10');
     expect(await pool.score(r, samples, region)).toEqual(scoreCandidate(r, samples, region));
   });
-  it('samples a region in a worker and scores audit candidates there exactly as in process, with block progress', async () => {
+  it('samples an audit region in every worker and scores its candidates there exactly as in process, with block progress', async () => {
     const geometry = { type: 'Polygon' as const, coordinates: [[[-10, 35], [30, 35], [30, 60], [-10, 60], [-10, 35]]] };
     const region = prepareRegion(geometry);
     const expectedSamples = sampleRegion(region, { count: 60_000, seed: 4 });
-    const data = await pool.sample(geometry, 60_000, 4);
-    expect(Array.from(data.samples.lonDeg)).toEqual(Array.from(expectedSamples.lonDeg));
-    const defs = ['+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10', 'EPSG:3035', '+proj=merc +lon_0=10'];
+    const { audit, count } = await pool.sampleAudit(geometry, 60_000, 4);
+    expect(count).toBe(expectedSamples.count);
+    // Five candidates on two workers: both workers score some, each from its own sampling.
+    const defs = ['+proj=lcc +lat_1=40 +lat_2=55 +lon_0=10', 'EPSG:3035', '+proj=merc +lon_0=10', '+proj=tmerc +lon_0=10', '+proj=aea +lat_1=40 +lat_2=55 +lon_0=10'];
     const progress = defs.map(() => [] as number[]);
     const results = await Promise.all(
-      defs.map((d, i) => pool.auditCandidate(resolveDefinition(d), d, data, 20_000, (done) => progress[i].push(done))),
+      defs.map((d, i) => pool.auditCandidate(resolveDefinition(d), d, audit, 20_000, (done) => progress[i].push(done))),
     );
     defs.forEach((d, i) => {
       expect(results[i].metrics).toEqual(JSON.parse(JSON.stringify(scoreCandidate(resolveDefinition(d), expectedSamples, region))));
@@ -52,10 +53,20 @@ describe('FactorPool', () => {
       expect(results[i].fields.lonDeg[1]).toBe(expectedSamples.lonDeg[3]);
     });
   });
+  it('prepares an audit region again in a worker that no longer holds it', async () => {
+    const geometry = { type: 'Polygon' as const, coordinates: [[[0, 0], [10, 0], [10, 10], [0, 10], [0, 0]]] };
+    const { audit } = await pool.sampleAudit(geometry, 3000, 9);
+    // Push it out of every worker's few kept datasets, then score against it.
+    for (let k = 0; k < 5; k++) await pool.sampleAudit(geometry, 1000 + k, k);
+    const def = '+proj=laea +lat_0=5 +lon_0=5';
+    const region = prepareRegion(geometry);
+    const got = await pool.auditCandidate(resolveDefinition(def), def, audit, 3000);
+    expect(got.metrics).toEqual(JSON.parse(JSON.stringify(scoreCandidate(resolveDefinition(def), sampleRegion(region, { count: 3000, seed: 9 }), region))));
+  });
   it('refuses an audit candidate that is undefined over the whole region, naming it', async () => {
-    const data = await pool.sample({ type: 'Polygon', coordinates: [[[100, -10], [120, -10], [120, 10], [100, 10], [100, -10]]] }, 2000, 1);
+    const { audit } = await pool.sampleAudit({ type: 'Polygon', coordinates: [[[100, -10], [120, -10], [120, 10], [100, 10], [100, -10]]] }, 2000, 1);
     // Orthographic centred on the far side of the Earth: nothing of the region is visible.
-    await expect(pool.auditCandidate(resolveDefinition('+proj=ortho +lat_0=0 +lon_0=-70 +R=6371000'), 'Far-side orthographic', data, 1000)).rejects.toThrow(
+    await expect(pool.auditCandidate(resolveDefinition('+proj=ortho +lat_0=0 +lon_0=-70 +R=6371000'), 'Far-side orthographic', audit, 1000)).rejects.toThrow(
       /Far-side orthographic is undefined over the whole region/,
     );
   });

@@ -9,7 +9,7 @@ import type { RegionInput } from '../../shared/engine/region/geojson';
 import type { AuditCandidateResult } from './audit-candidate';
 import type { FactorLinesResult } from './factor-lines';
 import { bundledWorkerPath } from './worker-bundle';
-import type { WorkerRequest } from './factors-worker';
+import type { AuditDataset, WorkerRequest } from './factors-worker';
 
 type Pending = { resolve: (v: unknown) => void; reject: (e: Error) => void; onProgress?: (done: number) => void };
 type WithoutId<T> = T extends unknown ? Omit<T, 'id'> : never;
@@ -133,16 +133,13 @@ export class FactorPool {
   }
 
   /**
-   * Prepares and samples a region in a worker (which keeps the result for the audit's candidates);
-   * the samples and prepared region come back for the other workers.
+   * Prepares and samples an audit's region in every worker at once (each keeps it for the audit's
+   * candidates); resolves with the sample count. Nothing large comes back to this thread.
    */
-  async sample(geometry: RegionInput, count: number, seed: number): Promise<{ samples: RegionSamples; region: PreparedRegion }> {
-    const slot = this.leastBusy();
-    const dataset = this.nextDataset++;
-    const out = await this.send<{ samples: RegionSamples; region: PreparedRegion }>({ kind: 'sample', geometry, count, seed, dataset }, [], slot);
-    this.datasetIds.set(out.samples, dataset);
-    this.remember(slot, dataset);
-    return out;
+  async sampleAudit(geometry: RegionInput, count: number, seed: number): Promise<{ audit: AuditDataset; count: number }> {
+    const audit: AuditDataset = { key: this.nextDataset++, geometry, count, seed };
+    const counts = await Promise.all(this.slots.map((slot) => this.send<{ count: number }>({ kind: 'sample', audit }, [], slot)));
+    return { audit, count: counts[0].count };
   }
 
   /**
@@ -152,12 +149,11 @@ export class FactorPool {
   auditCandidate(
     resolved: ResolvedDefinition,
     label: string,
-    data: { samples: RegionSamples; region: PreparedRegion },
+    audit: AuditDataset,
     storedCap: number,
     onProgress?: (samplesDone: number) => void,
   ): Promise<AuditCandidateResult> {
-    const { slot, dataset, known } = this.slotFor(data.samples);
-    return this.send({ kind: 'audit', resolved, label, storedCap, dataset, ...(known ? {} : data) }, [], slot, onProgress);
+    return this.send({ kind: 'audit', resolved, label, storedCap, audit }, [], undefined, onProgress);
   }
 
   /** Terminates the workers. */

@@ -16,19 +16,18 @@ export const STORED_FIELD_CAP = 50_000;
 
 /**
  * Scores every candidate of an audit with the engine on one shared set of samples, all of it in
- * the worker-thread pool: a worker prepares and samples the region once (sampleRegion, same count
- * and seed → same points), then each candidate is scored whole in a worker — factors, fields and
+ * the worker-thread pool: every worker prepares and samples the region (sampleRegion, same count
+ * and seed → the same points in each), then each candidate is scored whole in a worker — factors, fields and
  * scorecard, exactly what scoreCandidate does in one thread — the candidates spread over the
  * workers. This thread only routes messages and writes progress, so the HTTP server sharing it
  * keeps answering promptly while audits run (the pool threads run at a lower priority).
  */
 export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress: (fraction: number) => Promise<void> = async () => {}): Promise<AuditResult> {
   const t0 = performance.now();
-  const data = await pool.sample(input.geometry, input.samples, input.seed);
+  const { audit, count: n } = await pool.sampleAudit(input.geometry, input.samples, input.seed);
   const tSample = performance.now() - t0;
   // Sampling is reported as the first tenth of the work, the candidates' factors as the rest.
   await onProgress(SAMPLING_SHARE);
-  const n = data.samples.count;
   const total = input.candidates.length * n;
   const doneOf = new Array<number>(input.candidates.length).fill(0);
   // Progress arrives from several workers at once; the writes go out one at a time, in order.
@@ -43,7 +42,7 @@ export async function scoreAudit(pool: FactorPool, input: AuditInput, onProgress
   };
   const scored = await Promise.all(
     input.candidates.map((cand, ci) =>
-      pool.auditCandidate(resolveDefinition(cand.definition), cand.label, data, STORED_FIELD_CAP, (done) => {
+      pool.auditCandidate(resolveDefinition(cand.definition), cand.label, audit, STORED_FIELD_CAP, (done) => {
         doneOf[ci] = done;
         report();
       }),
