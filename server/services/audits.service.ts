@@ -14,6 +14,7 @@ import { readSettings, type AuditCandidateSnapshot, type StoredAuditSettings } f
 import { ENGINE_VERSION } from '../jobs/engine-instance.js';
 import { canonicalSha256 } from '../regions/canonical-json.js';
 import { recordActivity } from './activity.service.js';
+import { hydrate, poolQuery, selectColumns, tableOf } from './raw-rows.js';
 import { loadProjectFor } from './project-guard.js';
 import { scorecardViews } from './scorecards.service.js';
 
@@ -151,27 +152,28 @@ export async function listAudits(db: DataSource, actor: Actor, projectId: number
  * with them are simply not found). Pictures, exports and the scorecard page all start here.
  */
 export async function loadAuditFor(db: DataSource, actor: Actor, auditId: number): Promise<{ audit: Audit; project: MapProject }> {
-  const qb = db
-    .getRepository(Audit)
-    .createQueryBuilder('a')
-    .innerJoinAndMapOne('a.project', MapProject, 'p', 'p.id = a.projectId AND p.studioId = a.studioId')
-    .where('a.id = :auditId AND a.studioId = :studioId', { auditId, studioId: actor.studioId });
-  if (!isStaffRole(actor.role)) {
-    qb.innerJoin(ProjectAccess, 'pa', 'pa.projectId = p.id AND pa.userId = :userId', { userId: actor.userId });
-  }
-  const found = (await qb.getOne()) as (Audit & { project?: MapProject }) | null;
-  if (!found?.project) throw notFound('That audit');
-  const { project, ...rest } = found;
-  return { audit: Object.assign(new Audit(), rest), project };
+  const client = !isStaffRole(actor.role);
+  const sql =
+    `SELECT ${selectColumns(db, Audit, 'a')}, ${selectColumns(db, MapProject, 'p')} FROM ${tableOf(db, Audit)} a ` +
+    `JOIN ${tableOf(db, MapProject)} p ON p.id = a.projectId AND p.studioId = a.studioId ` +
+    (client ? `JOIN ${tableOf(db, ProjectAccess)} pa ON pa.projectId = p.id AND pa.userId = ? ` : '') +
+    'WHERE a.id = ? AND a.studioId = ?';
+  const [row] = await poolQuery(db, sql, client ? [actor.userId, auditId, actor.studioId] : [auditId, actor.studioId]);
+  if (!row) throw notFound('That audit');
+  return { audit: hydrate(db, Audit, row, 'a'), project: hydrate(db, MapProject, row, 'p') };
 }
 
 export async function getAudit(db: DataSource, actor: Actor, auditId: number): Promise<AuditDetail> {
   const { audit, project } = await loadAuditFor(db, actor, auditId);
-  const cards = audit.status === 'done'
-    ? await db.getRepository(Scorecard).find({
-        select: { id: true, candidateId: true, metrics: true },
-        where: { auditId: audit.id, studioId: actor.studioId, candidateId: In(audit.candidateIds) },
-      })
-    : [];
+  const cards =
+    audit.status === 'done' && audit.candidateIds.length
+      ? (
+          await poolQuery(
+            db,
+            `SELECT ${selectColumns(db, Scorecard, 's', ['candidateId', 'metrics'])} FROM ${tableOf(db, Scorecard)} s WHERE s.auditId = ? AND s.studioId = ? AND s.candidateId IN (?)`,
+            [audit.id, actor.studioId, audit.candidateIds],
+          )
+        ).map((row) => hydrate(db, Scorecard, row, 's', ['candidateId', 'metrics']))
+      : [];
   return { ...auditSummary(audit), purpose: project.purpose, scorecards: scorecardViews(audit, cards) };
 }

@@ -10,6 +10,7 @@ import { isStaffRole } from '../../shared/api/roles.js';
 import { Audit, Candidate, MapProject, ProjectAccess, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { recordActivity } from './activity.service.js';
+import { poolQuery } from './raw-rows.js';
 import { loadProjectFor } from './project-guard.js';
 
 /** Per-project figures shown beside a project in lists and on its page. */
@@ -120,7 +121,7 @@ export async function listProjects(ds: DataSource, actor: Actor, query: ListProj
   const column = { updated: 'p.updatedAt', title: 'p.title', status: 'p.status' }[q.sort];
   const dir = (q.dir ?? (q.sort === 'updated' ? 'desc' : 'asc')) === 'desc' ? 'DESC' : 'ASC';
   sql += ` ORDER BY ${column} ${dir}, p.id ${dir} LIMIT 500`;
-  const rows = (await ds.query(sql, params)) as ProjectListRow[];
+  const rows = await poolQuery<ProjectListRow>(ds, sql, params);
   return rows.map((r) => ({
     id: r.id,
     title: r.title,
