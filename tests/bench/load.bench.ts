@@ -20,7 +20,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
-import { pacedLoad } from './paced-load';
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { pacedLoad, type PacedLoadOptions, type PacedLoadResult } from './paced-load';
 import type { BenchRow, BenchSection } from './run';
 
 const CONNECTIONS = 50;
@@ -135,6 +137,8 @@ interface LoadResult {
   non2xx: number;
   errors: number;
   requests: number;
+  /** Steady runs: how late the generator itself sent requests (p99, ms) — a check on the measurement. */
+  sendLagP99?: number;
 }
 
 /** autocannon flat out against one path; every connection keeps one session of `sessions` for the whole run. */
@@ -166,10 +170,16 @@ async function load(url: string, pathName: string, sessions: Session[]): Promise
   };
 }
 
-/** The target rate, steady (Poisson arrivals, open loop) over the same 50 sessions, one connection each. */
+/** The target rate, steady (Poisson arrivals, open loop) over the same 50 sessions, one connection each, from a process of its own. */
 async function paced(url: string, pathName: string, sessions: Session[], seed = 1): Promise<LoadResult> {
   const cpu0 = cpuMsOf(serverPid);
-  const r = await pacedLoad({ url, path: pathName, cookies: sessions.map((s) => s.cookie), ratePerS: TARGET.jsonRps, seconds: SECONDS, connections: CONNECTIONS, seed });
+  const opts: PacedLoadOptions = { url, path: pathName, cookies: sessions.map((s) => s.cookie), ratePerS: TARGET.jsonRps, seconds: SECONDS, connections: CONNECTIONS, seed };
+  const out = execFileSync(process.execPath, ['--import', 'tsx', fileURLToPath(new URL('./paced-load-main.ts', import.meta.url))], {
+    env: { ...process.env, WM_PACED_LOAD: JSON.stringify(opts) },
+    encoding: 'utf8',
+    maxBuffer: 1 << 20,
+  });
+  const r = JSON.parse(out.trim().split('\n').pop()!) as PacedLoadResult;
   return { ...r, cpuMsPerReq: (cpuMsOf(serverPid) - cpu0) / Math.max(1, r.requests), errors: r.errors };
 }
 
@@ -194,6 +204,7 @@ function jsonRows(label: string, flat: LoadResult, steady: LoadResult): BenchRow
       'p99 ms': steady.p99,
       'non-2xx/errors': `${steady.non2xx}/${steady.errors}`,
       'server CPU ms/req': steady.cpuMsPerReq.toFixed(2),
+      'generator lag p99 ms': steady.sendLagP99 ?? '',
       target: `p99 ≤ ${TARGET.jsonP99Ms} ms`,
       ratio: `${(TARGET.jsonP99Ms / Math.max(steady.p99, 0.01)).toFixed(2)}× — ${verdict(steady.p99 <= TARGET.jsonP99Ms && steady.rps >= TARGET.jsonRps * 0.95)}`,
     },

@@ -36,6 +36,8 @@ export interface PacedLoadResult {
   non2xx: number;
   errors: number;
   requests: number;
+  /** 99th percentile of how late the generator itself sent a request after its due time, ms. */
+  sendLagP99: number;
 }
 
 /** mulberry32: a small seeded generator, so the arrival times of a run can be replayed. */
@@ -62,7 +64,9 @@ export async function pacedLoad(opts: PacedLoadOptions): Promise<PacedLoadResult
   let errors = 0;
   const inFlight = new Set<Promise<void>>();
 
+  const sendLags: number[] = [];
   const send = (k: number, dueMs: number) => {
+    sendLags.push(performance.now() - dueMs);
     const c = k % opts.connections;
     const done = new Promise<void>((resolve) => {
       const req = http.request(
@@ -103,6 +107,7 @@ export async function pacedLoad(opts: PacedLoadOptions): Promise<PacedLoadResult
   const elapsedS = (performance.now() - start) / 1000;
   for (const a of agents) a.destroy();
   latencies.sort((a, b) => a - b);
+  sendLags.sort((a, b) => a - b);
   const round = (v: number) => Math.round(v * 10) / 10;
   return {
     rps: latencies.length / elapsedS,
@@ -113,5 +118,6 @@ export async function pacedLoad(opts: PacedLoadOptions): Promise<PacedLoadResult
     non2xx,
     errors,
     requests: k,
+    sendLagP99: round(quantile(sendLags, 0.99)),
   };
 }
