@@ -108,7 +108,7 @@ export function createApp(deps: AppDeps): Express {
       cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 1000 * 60 * 60 * 12 },
     }),
   );
-  api.use(loadActor(deps.dataSource));
+  api.use(loadActor);
   api.use(buildRouter(apiRoutes(deps), csrfCheck));
   api.use(notFoundHandler);
   app.use('/api', api);

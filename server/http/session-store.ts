@@ -4,6 +4,7 @@ import session from 'express-session';
 import MySQLStoreFactory from 'express-mysql-session';
 import type { DataSource } from 'typeorm';
 import { Membership, User } from '../entities/index.js';
+import { tableOf } from '../services/raw-rows.js';
 import type { Role } from '../../shared/api/roles.js';
 
 /** The signed-in person's membership and user, read in the same query as their session. */
@@ -70,9 +71,8 @@ export function createSessionStore(ds: DataSource) {
     close(): Promise<void>;
   }
   const MySQLStore = MySQLStoreFactory(session as never) as unknown as new (options: object, connection: unknown) => MySQLStoreBase;
-  const q = (name: string) => ds.driver.escape(name);
-  const memberships = q(ds.getMetadata(Membership).tablePath);
-  const users = q(ds.getMetadata(User).tablePath);
+  const memberships = tableOf(ds, Membership);
+  const users = tableOf(ds, User);
   const pool = (ds.driver as unknown as { pool: unknown }).pool;
 
   class StudioSessionStore extends MySQLStore {

@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { Scorecard } from '../entities/index.js';
+import { tableOf } from '../services/raw-rows.js';
 
 export interface ScorecardRow {
   auditId: number;
@@ -22,7 +23,7 @@ export async function insertScorecard(tx: EntityManager, row: ScorecardRow): Pro
   const runner = tx.queryRunner;
   if (!runner) throw new Error('insertScorecard needs a transaction’s entity manager');
   const conn = (await runner.connect()) as PreparedConnection;
-  const table = tx.connection.driver.escape(tx.connection.getMetadata(Scorecard).tablePath);
+  const table = tableOf(tx.connection, Scorecard);
   const sql = `INSERT INTO ${table} (auditId, candidateId, studioId, metrics, fields) VALUES (?, ?, ?, ?, ?)`;
   await new Promise<void>((resolve, reject) =>
     conn.execute(sql, [row.auditId, row.candidateId, row.studioId, JSON.stringify(row.metrics), row.fields], (err) => (err ? reject(err) : resolve())),

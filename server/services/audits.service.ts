@@ -1,5 +1,4 @@
 import type { DataSource } from 'typeorm';
-import { In } from 'typeorm';
 import {
   SAMPLES_DEFAULT,
   type AuditDetail,

@@ -10,7 +10,7 @@ import { isStaffRole } from '../../shared/api/roles.js';
 import { Audit, Candidate, MapProject, ProjectAccess, Region } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { recordActivity } from './activity.service.js';
-import { poolQuery } from './raw-rows.js';
+import { poolQuery, tableOf } from './raw-rows.js';
 import { loadProjectFor } from './project-guard.js';
 
 /** Per-project figures shown beside a project in lists and on its page. */
@@ -82,12 +82,6 @@ interface ProjectListRow {
   candidateCount: string | number; auditCount: string | number;
 }
 
-/** Table names from the entities' metadata, quoted. */
-function tablesOf(ds: DataSource) {
-  const t = (e: Parameters<DataSource['getMetadata']>[0]) => ds.driver.escape(ds.getRepository(e).metadata.tablePath);
-  return { projects: t(MapProject), access: t(ProjectAccess), regions: t(Region), candidates: t(Candidate), audits: t(Audit) };
-}
-
 /**
  * The studio's projects the actor may see (clients: only those shared with them), searched by
  * title, client name or notes, filtered by status and purpose, sorted — with each project's
@@ -96,7 +90,7 @@ function tablesOf(ds: DataSource) {
  */
 export async function listProjects(ds: DataSource, actor: Actor, query: ListProjectsQuery): Promise<ProjectView[]> {
   const q = listProjectsQuerySchema.parse(query);
-  const t = tablesOf(ds);
+  const t = { projects: tableOf(ds, MapProject), access: tableOf(ds, ProjectAccess), regions: tableOf(ds, Region), candidates: tableOf(ds, Candidate), audits: tableOf(ds, Audit) };
   const params: unknown[] = [];
   let sql =
     'SELECT p.id, p.title, p.clientName, p.purpose, p.scaleBand, p.status, p.notes, p.createdAt, p.updatedAt, ' +

@@ -17,12 +17,23 @@ export function poolQuery<T = Record<string, unknown>>(ds: DataSource, sql: stri
 const columnsOf = (ds: DataSource, entity: EntityTarget<ObjectLiteral>, only?: readonly string[]) =>
   ds.getMetadata(entity).columns.filter((c) => !only || only.includes(c.propertyName));
 
+/** Select lists already built, per data source (they depend only on the metadata). */
+const selectLists = new WeakMap<DataSource, Map<string, string>>();
+
 /** `alias.col AS alias_col, …` for every column of an entity (or only the named properties). */
 export function selectColumns(ds: DataSource, entity: EntityTarget<ObjectLiteral>, alias: string, only?: readonly string[]): string {
-  const q = (s: string) => ds.driver.escape(s);
-  return columnsOf(ds, entity, only)
-    .map((c) => `${alias}.${q(c.databaseName)} AS ${q(`${alias}_${c.databaseName}`)}`)
-    .join(', ');
+  let lists = selectLists.get(ds);
+  if (!lists) selectLists.set(ds, (lists = new Map()));
+  const key = `${ds.getMetadata(entity).name}|${alias}|${only?.join(',') ?? ''}`;
+  let list = lists.get(key);
+  if (list === undefined) {
+    const q = (s: string) => ds.driver.escape(s);
+    list = columnsOf(ds, entity, only)
+      .map((c) => `${alias}.${q(c.databaseName)} AS ${q(`${alias}_${c.databaseName}`)}`)
+      .join(', ');
+    lists.set(key, list);
+  }
+  return list;
 }
 
 /**
@@ -35,5 +46,5 @@ export function hydrate<T extends ObjectLiteral>(ds: DataSource, entity: EntityT
   return out as T;
 }
 
-/** The quoted table name of an entity. */
-export const tableOf = (ds: DataSource, entity: EntityTarget<ObjectLiteral>) => ds.driver.escape(ds.getMetadata(entity).tablePath);
+/** The quoted table name of an entity (through its repository, like every other data access). */
+export const tableOf = (ds: DataSource, entity: EntityTarget<ObjectLiteral>) => ds.driver.escape(ds.getRepository(entity).metadata.tablePath);
