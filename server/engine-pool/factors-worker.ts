@@ -50,11 +50,6 @@ try {
 const evaluators = new Map<string, FactorEvaluator>();
 const lineProcessors = new Map<string, (text: string) => FactorLinesResult>();
 
-function keepDataset(id: number, samples: RegionSamples, region?: PreparedRegion): void {
-  datasets.set(id, { samples, region });
-  while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
-}
-
 /** Audit datasets this worker prepared, by key (a few kept; an evicted one is prepared again). */
 const auditDatasets = new Map<number, { samples: RegionSamples; region: PreparedRegion }>();
 
@@ -66,12 +61,6 @@ function auditDataset(a: AuditDataset) {
     auditDatasets.set(a.key, data);
     while (auditDatasets.size > KEEP_DATASETS) auditDatasets.delete(auditDatasets.keys().next().value as number);
   }
-  return data;
-}
-
-function dataset(id: number) {
-  const data = datasets.get(id);
-  if (!data) throw new Error(`dataset ${id} is not in this worker any more`);
   return data;
 }
 
@@ -90,8 +79,12 @@ function handle(msg: WorkerRequest): void {
       return;
     }
     if (msg.kind === 'score') {
-      if (msg.samples) keepDataset(msg.dataset, msg.samples, msg.region);
-      const data = dataset(msg.dataset);
+      if (msg.samples) {
+        datasets.set(msg.dataset, { samples: msg.samples, region: msg.region });
+        while (datasets.size > KEEP_DATASETS) datasets.delete(datasets.keys().next().value as number);
+      }
+      const data = datasets.get(msg.dataset);
+      if (!data) throw new Error(`dataset ${msg.dataset} is not in this worker any more`);
       parentPort!.postMessage({ id: msg.id, ok: true, result: scoreCandidate(msg.resolved, data.samples, data.region) });
       return;
     }

@@ -110,25 +110,17 @@ export class FactorPool {
     return out;
   }
 
-  /** The slot to send a dataset's next job to, and whether that worker already holds the dataset. */
-  private slotFor(samples: RegionSamples): { slot: Slot; dataset: number; known: boolean } {
+  /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
+  score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
+    // The samples and region travel to each worker once; later candidates refer to them by id.
     let dataset = this.datasetIds.get(samples);
     if (dataset === undefined) this.datasetIds.set(samples, (dataset = this.nextDataset++));
     const slot = this.leastBusy();
     const known = slot.datasets.includes(dataset);
-    if (!known) this.remember(slot, dataset);
-    return { slot, dataset, known };
-  }
-
-  private remember(slot: Slot, dataset: number): void {
-    slot.datasets.push(dataset);
-    if (slot.datasets.length > 4) slot.datasets.shift();
-  }
-
-  /** A candidate's whole scorecard (factors and statistics) computed in a worker. */
-  score(resolved: ResolvedDefinition, samples: RegionSamples, region?: PreparedRegion): Promise<CandidateMetrics> {
-    // The samples and region travel to each worker once; later candidates refer to them by id.
-    const { slot, dataset, known } = this.slotFor(samples);
+    if (!known) {
+      slot.datasets.push(dataset);
+      if (slot.datasets.length > 4) slot.datasets.shift();
+    }
     return this.send({ kind: 'score', resolved, dataset, ...(known ? {} : { samples, region }) }, [], slot);
   }
 

@@ -22,8 +22,6 @@ export interface PacedLoadOptions {
   seconds: number;
   connections: number;
   seed?: number;
-  /** When given, receives each answered request's due time (ms since the run started) and latency. */
-  onAnswer?: (dueMs: number, latencyMs: number) => void;
 }
 
 export interface PacedLoadResult {
@@ -74,9 +72,7 @@ export async function pacedLoad(opts: PacedLoadOptions): Promise<PacedLoadResult
         (res) => {
           res.resume();
           res.on('end', () => {
-            const latency = performance.now() - dueMs;
-            latencies.push(latency);
-            opts.onAnswer?.(dueMs - start, latency);
+            latencies.push(performance.now() - dueMs);
             if ((res.statusCode ?? 0) < 200 || (res.statusCode ?? 0) >= 300) non2xx++;
             resolve();
           });
