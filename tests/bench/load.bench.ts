@@ -23,21 +23,12 @@ import autocannon from 'autocannon';
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { pacedLoad, type PacedLoadOptions, type PacedLoadResult } from './paced-load';
+import { CHILE_CANDIDATES as DEFINITIONS } from './chile-candidates';
 import type { BenchRow, BenchSection } from './run';
 
 const CONNECTIONS = 50;
 const SECONDS = Number(process.env.WM_BENCH_LOAD_SECONDS ?? 10);
 const TARGET = { jsonRps: 300, jsonP99Ms: 50, heatmapRps: 200 };
-const DEFINITIONS = [
-  '+proj=tmerc +lat_0=0 +lon_0=-71 +k_0=0.9996 +x_0=500000 +y_0=10000000 +ellps=WGS84',
-  '+proj=utm +zone=19 +south +ellps=WGS84',
-  '+proj=laea +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
-  '+proj=aeqd +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
-  '+proj=lcc +lat_1=-24 +lat_2=-50 +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
-  '+proj=aea +lat_1=-24 +lat_2=-50 +lat_0=-37 +lon_0=-71 +x_0=0 +y_0=0 +ellps=WGS84',
-  '+proj=merc +lon_0=-71 +ellps=WGS84',
-  '+proj=stere +lat_0=-37 +lon_0=-71 +k_0=1 +x_0=0 +y_0=0 +ellps=WGS84',
-];
 
 /** A database, queue prefix and data directory of this bench's own. */
 async function loadEnvironment() {
