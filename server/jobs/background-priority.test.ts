@@ -2,6 +2,16 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { parseWorkerNice } from './background-priority';
+
+describe('parseWorkerNice', () => {
+  it('takes 0–19, defaults to 19, and refuses anything else with a message', () => {
+    expect(parseWorkerNice(undefined)).toBe(19);
+    expect(parseWorkerNice('0')).toBe(0);
+    expect(parseWorkerNice('7')).toBe(7);
+    for (const bad of ['20', '-1', 'low', '1.5', '19x']) expect(() => parseWorkerNice(bad)).toThrow(/whole number from 0 .* to 19/);
+  });
+});
 
 describe('lowerSessionPriority', () => {
   it('sets the autogroup nice of a process leading a session of its own, leaving the caller’s session alone', () => {

@@ -1,6 +1,15 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 
+/** WARPMETER_WORKER_NICE: a whole number from 0 (normal priority) to 19; anything else is refused with a message. */
+export function parseWorkerNice(raw: string | undefined): number {
+  if (raw === undefined || raw === '') return 19;
+  if (!/^\d{1,2}$/.test(raw.trim()) || Number(raw) > 19) {
+    throw new Error(`WARPMETER_WORKER_NICE must be a whole number from 0 (normal priority) to 19 (lowest), not "${raw}".`);
+  }
+  return Number(raw);
+}
+
 /** True when this process leads its own session (Linux: field 6 of /proc/self/stat is the session id). */
 function leadsOwnSession(): boolean {
   try {

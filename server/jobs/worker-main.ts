@@ -2,7 +2,7 @@ import 'reflect-metadata';
 import pino from 'pino';
 import { loadConfig } from '../config.js';
 import { createDataSource } from '../data-source.js';
-import { lowerSessionPriority } from './background-priority.js';
+import { lowerSessionPriority, parseWorkerNice } from './background-priority.js';
 import { sharedAuditEngine, closeSharedAuditEngine } from './engine-instance.js';
 import { createAuditWorker } from './worker.js';
 
@@ -13,8 +13,14 @@ const config = loadConfig();
 const logger = pino({ level: process.env.LOG_LEVEL ?? 'info' });
 // Audits are background work: this process yields the CPU to the web server and the database
 // (WARPMETER_WORKER_NICE=0 keeps the normal priority, e.g. on a machine of its own).
-const workerNice = Number(process.env.WARPMETER_WORKER_NICE ?? 19);
-const backgrounded = workerNice > 0 ? lowerSessionPriority(Math.min(19, workerNice)) : 'none';
+let workerNice: number;
+try {
+  workerNice = parseWorkerNice(process.env.WARPMETER_WORKER_NICE);
+} catch (err) {
+  console.error(`warpmeter worker: ${(err as Error).message}`);
+  process.exit(2);
+}
+const backgrounded = workerNice > 0 ? lowerSessionPriority(workerNice) : 'none';
 const dataSource = createDataSource(config.db);
 await dataSource.initialize();
 const engine = await sharedAuditEngine();
