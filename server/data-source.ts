@@ -22,9 +22,6 @@ export function createDataSource(db: Config['db'] = loadConfig().db): DataSource
     logging: false,
     // trace: false — mysql2 otherwise captures a stack trace on every query (for the rare failed
     // one); TypeORM's QueryFailedError names the query and its parameters anyway.
-    extra: { connectionLimit: 20, connectTimeout: 5000, enableKeepAlive: true, trace: false },
+    extra: { connectionLimit: db.poolSize, connectTimeout: 5000, enableKeepAlive: true, trace: false },
   });
 }
-
-/** The one export the TypeORM CLI needs (`npx tsx node_modules/typeorm/cli.js -d server/data-source.ts`). */
-export const AppDataSource = createDataSource();

@@ -1,9 +1,18 @@
 import { createApp } from './app.js';
 import { bootstrap } from './bootstrap.js';
+import { loadConfig, type Config } from './config.js';
 import { startAuditJobs, stopAuditJobs } from './jobs/runner.js';
 
+// A setting out of range stops the start with its message (exit code 2), not a stack trace.
+let config: Config;
+try {
+  config = loadConfig();
+} catch (err) {
+  console.error(`warpmeter: ${(err as Error).message}`);
+  process.exit(2);
+}
 // Starts listening; everything else lives in createApp and bootstrap.
-const deps = await bootstrap();
+const deps = await bootstrap(config);
 const app = createApp(deps);
 // The audit queue, this process's own audit worker and the re-enqueueing of interrupted audits.
 await startAuditJobs(deps);

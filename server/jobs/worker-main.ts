@@ -1,6 +1,6 @@
 import 'reflect-metadata';
 import pino from 'pino';
-import { loadConfig } from '../config.js';
+import { loadConfig, type Config } from '../config.js';
 import { createDataSource } from '../data-source.js';
 import { lowerSessionPriority, parseWorkerNice } from './background-priority.js';
 import { sharedAuditEngine, closeSharedAuditEngine } from './engine-instance.js';
@@ -9,12 +9,13 @@ import { createAuditWorker } from './worker.js';
 // `npm run worker`: an extra audit worker process. It needs only MariaDB and Redis (the
 // WARPMETER_DB_* and WARPMETER_REDIS_* variables), so it may run on another machine. It does not
 // migrate the database: the app does that at start.
-const config = loadConfig();
 const logger = pino({ level: process.env.LOG_LEVEL ?? 'info' });
 // Audits are background work: this process yields the CPU to the web server and the database
 // (WARPMETER_WORKER_NICE=0 keeps the normal priority, e.g. on a machine of its own).
 let workerNice: number;
+let config: Config;
 try {
+  config = loadConfig();
   workerNice = parseWorkerNice(process.env.WARPMETER_WORKER_NICE);
 } catch (err) {
   console.error(`warpmeter worker: ${(err as Error).message}`);

@@ -12,7 +12,10 @@ DATA="$ROOT/.data"
 if [ -f "$DATA/run/app.pid" ] && kill -0 "$(cat "$DATA/run/app.pid")" 2>/dev/null; then
   echo "Warpmeter is already running on http://127.0.0.1:${PORT:-3000}"; exit 0
 fi
-setsid node --import tsx server/index.ts </dev/null >>"$DATA/logs/app.log" 2>&1 9>&- &
+# Audits run in the worker process started below, in the background for the CPU scheduler; the
+# app serves requests only (set WARPMETER_NO_INPROCESS_WORKER=0 to have it run audits as well).
+WARPMETER_NO_INPROCESS_WORKER=${WARPMETER_NO_INPROCESS_WORKER:-1} \
+  setsid node --import tsx server/index.ts </dev/null >>"$DATA/logs/app.log" 2>&1 9>&- &
 echo $! >"$DATA/run/app.pid"
 if [ -f server/jobs/worker-main.ts ]; then
   setsid node --import tsx server/jobs/worker-main.ts </dev/null >>"$DATA/logs/worker.log" 2>&1 9>&- &

@@ -29,7 +29,7 @@ let c: Client;
 beforeAll(async () => {
   db = await startPrivateMariadb();
   const base = loadConfig();
-  deps = await bootstrap({ ...base, db: { host: '127.0.0.1', port: db.port, user: db.user, password: db.password, database: db.database } }, pino({ level: 'silent' }));
+  deps = await bootstrap({ ...base, db: { host: '127.0.0.1', port: db.port, user: db.user, password: db.password, database: db.database, poolSize: base.db.poolSize } }, pino({ level: 'silent' }));
   app = createApp(deps);
   c = await anonymousClient(app);
   const up = await c.post('/api/auth/sign-up', { studioName: 'Outage Studio', name: 'Olga', email: 'olga@outage.test', password: 'outage-password-1' });
