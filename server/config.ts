@@ -21,11 +21,11 @@ const num = (v: string | undefined, d: number) => (v && Number.isFinite(Number(v
 /**
  * WARPMETER_DB_POOL: a whole number from 1 to 200; by default twice the cores plus one. A pool
  * about the size of what the machine can run at once keeps a burst of requests queued in the
- * app, first come first served, instead of twenty queries at a time sharing two cores inside
- * MariaDB (measured in the load bench: on 2 cores, a pool of 20 gave a p99 of 84–107 ms at 300
- * requests/s while audits ran, pools of 3–5 gave 17–58 ms). "Cores × 2 + spindles" is a common
- * sizing rule (common practice, recalled from connection-pool documentation, not measured here
- * beyond the bench above); refused with a message when it is not a whole number in range.
+ * app, first come first served, instead of twenty queries at a time sharing the cores inside
+ * MariaDB, each of them slowed by all the others. "Cores × 2 + spindles" is a sizing rule from
+ * connection-pool documentation (common practice, recalled from memory); on the 2-core machine
+ * of the load bench, pools of 3 and 5 gave lower p99 latencies than 20 while audits ran, with the
+ * spread of those runs noted in the README. Refused with a message when out of range.
  */
 export function parseDbPool(raw: string | undefined, cores = availableParallelism()): number {
   if (raw === undefined || raw.trim() === '') return Math.max(3, cores * 2 + 1);
