@@ -32,12 +32,18 @@ function leadsOwnSession(): boolean {
 export function lowerSessionPriority(nice = 19): 'session' | 'thread' | 'none' {
   if (leadsOwnSession()) {
     try {
-      writeFileSync('/proc/self/autogroup', String(nice));
-      return 'session';
+      // The kernel shows the line only while an autogroup schedules this process: not when
+      // autogroups are off, nor inside a cgroup of its own (a container), where its nice would
+      // be accepted and change nothing.
+      if (/^\/autogroup-\d+ nice/.test(readFileSync('/proc/self/autogroup', 'utf8'))) {
+        writeFileSync('/proc/self/autogroup', String(nice));
+        return 'session';
+      }
     } catch {
-      // no autogroups here: fall through to this thread's own nice value
+      // no autogroups here
     }
   }
+  // Otherwise this thread's own nice value.
   try {
     os.setPriority(0, nice);
     return 'thread';
