@@ -20,7 +20,10 @@ interface ProjectExtras {
   auditCount: number;
 }
 
-const toView = (p: MapProject, x: ProjectExtras): ProjectView => ({
+/** The fields of a project a view shows (an entity, or a row of the list query). */
+type ProjectFields = Pick<MapProject, 'id' | 'title' | 'clientName' | 'purpose' | 'scaleBand' | 'status' | 'notes' | 'createdAt' | 'updatedAt'>;
+
+const toView = (p: ProjectFields, x: ProjectExtras): ProjectView => ({
   id: p.id,
   title: p.title,
   clientName: p.clientName,
@@ -34,8 +37,8 @@ const toView = (p: MapProject, x: ProjectExtras): ProjectView => ({
 });
 
 /**
- * Loads the current region and the candidate/audit counts of many projects in three queries
- * (whatever their number), so a list never issues one query per row.
+ * Loads the current region and the candidate/audit counts of the given projects in three queries
+ * (whatever their number). The list forms the same figures in its own single query.
  */
 async function extrasFor(ds: DataSource, studioId: number, ids: number[]): Promise<Map<number, ProjectExtras>> {
   const out = new Map<number, ProjectExtras>(ids.map((id) => [id, { region: null, candidateCount: 0, auditCount: 0 }]));
@@ -75,9 +78,7 @@ async function countBy(
 const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** A row of the list query: the project, its current region in brief, and its two counts. */
-interface ProjectListRow {
-  id: number; title: string; clientName: string; purpose: MapProject['purpose']; scaleBand: MapProject['scaleBand'];
-  status: MapProject['status']; notes: string | null; createdAt: Date; updatedAt: Date;
+interface ProjectListRow extends ProjectFields {
   regionId: number | null; regionName: string | null; regionAreaKm2: number | null;
   candidateCount: string | number; auditCount: string | number;
 }
@@ -116,20 +117,13 @@ export async function listProjects(ds: DataSource, actor: Actor, query: ListProj
   const dir = (q.dir ?? (q.sort === 'updated' ? 'desc' : 'asc')) === 'desc' ? 'DESC' : 'ASC';
   sql += ` ORDER BY ${column} ${dir}, p.id ${dir} LIMIT 500`;
   const rows = await poolQuery<ProjectListRow>(ds, sql, params);
-  return rows.map((r) => ({
-    id: r.id,
-    title: r.title,
-    clientName: r.clientName,
-    purpose: r.purpose,
-    scaleBand: r.scaleBand,
-    status: r.status,
-    notes: r.notes,
-    createdAt: r.createdAt.toISOString(),
-    updatedAt: r.updatedAt.toISOString(),
-    region: r.regionId === null ? null : { id: r.regionId, name: r.regionName!, areaKm2: Number(r.regionAreaKm2) },
-    candidateCount: Number(r.candidateCount),
-    auditCount: Number(r.auditCount),
-  }));
+  return rows.map((r) =>
+    toView(r, {
+      region: r.regionId === null ? null : { id: r.regionId, name: r.regionName!, areaKm2: Number(r.regionAreaKm2) },
+      candidateCount: Number(r.candidateCount),
+      auditCount: Number(r.auditCount),
+    }),
+  );
 }
 
 /** One project with its figures; 404 when the actor may not see it. */
