@@ -37,7 +37,7 @@ async function benchEnvironment() {
   return {
     async close() {
       await smtp.close();
-      await db.drop();
+      await db.close();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };

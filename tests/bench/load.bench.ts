@@ -51,7 +51,7 @@ async function loadEnvironment() {
     env,
     dir,
     async close() {
-      await db.drop();
+      await db.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },
   };

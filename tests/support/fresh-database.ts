@@ -11,7 +11,8 @@ export interface FreshDatabase {
   dbName: string;
   /** A unique tag for this database's queue prefix and folders. */
   tag: string;
-  drop(): Promise<void>;
+  /** Drops the database (unless keepDatabase, to look at it afterwards) and ends the admin connection. */
+  close(opts?: { keepDatabase?: boolean }): Promise<void>;
 }
 
 /**
@@ -36,8 +37,8 @@ export async function createFreshDatabase(prefix: string): Promise<FreshDatabase
   return {
     dbName,
     tag,
-    async drop() {
-      await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
+    async close({ keepDatabase = false } = {}) {
+      if (!keepDatabase) await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
       await admin.end();
     },
   };

@@ -28,7 +28,7 @@ export default async function setup(project: TestProject) {
   return async () => {
     await smtp.close();
     await pay.close();
-    if (!process.env.WARPMETER_KEEP_TEST_DB) await db.drop();
+    await db.close({ keepDatabase: Boolean(process.env.WARPMETER_KEEP_TEST_DB) });
   };
 }
 
