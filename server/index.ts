@@ -1,6 +1,7 @@
 import { createApp } from './app.js';
 import { bootstrap } from './bootstrap.js';
 import { loadConfig, type Config } from './config.js';
+import { createHttpServer } from './http/http-server.js';
 import { startAuditJobs, stopAuditJobs } from './jobs/runner.js';
 
 // A setting out of range stops the start with its message (exit code 2), not a stack trace.
@@ -16,7 +17,7 @@ const deps = await bootstrap(config);
 const app = createApp(deps);
 // The audit queue, this process's own audit worker and the re-enqueueing of interrupted audits.
 await startAuditJobs(deps);
-const server = app.listen(deps.config.port, deps.config.host, () => {
+const server = createHttpServer(app).listen(deps.config.port, deps.config.host, () => {
   deps.logger.info(`Warpmeter is listening on http://${deps.config.host}:${deps.config.port}`);
 });
 const shutdown = () => {

@@ -4,6 +4,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import type { Express } from 'express';
 import type { AppDeps } from '../../server/deps.js';
+import { createHttpServer } from '../../server/http/http-server.js';
 import { createTestApp } from './test-app.js';
 
 const ROOT = path.resolve(import.meta.dirname, '../..');
@@ -49,7 +50,7 @@ export interface ServedApp {
 export async function serveApp(): Promise<ServedApp> {
   ensureClientBuilt();
   const t = await createTestApp();
-  const server = t.app.listen(0, '127.0.0.1');
+  const server = createHttpServer(t.app).listen(0, '127.0.0.1');
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', reject);
