@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { Logger } from 'pino';
 import { ZodError } from 'zod';
 import { HttpError } from '../http/errors.js';
 
@@ -42,8 +43,12 @@ export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}.` } });
 };
 
-/** The one error handler: known errors keep their status; nothing internal reaches the client. */
-export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+/**
+ * The one error handler: known errors keep their status; nothing internal reaches the client.
+ * It logs through `logger`, the app's fully redacting logger — not `req.log`, which is the
+ * access log's, whose redaction covers only the access line's own fields.
+ */
+export const createErrorHandler = (logger: Logger): ErrorRequestHandler => (err, req, res, _next) => {
   if (res.headersSent) return;
   let status = 500;
   let body: { code: string; message: string; fields?: Record<string, string> };
@@ -70,7 +75,8 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else {
     body = { code: 'internal', message: 'Something went wrong on our side. The error was logged.' };
   }
-  if (status >= 500) req.log?.error({ err }, 'request failed');
-  else req.log?.info({ code: body.code, status }, 'request refused');
+  const request = { id: req.id, method: req.method, url: req.originalUrl };
+  if (status >= 500) logger.error({ req: request, err }, 'request failed');
+  else logger.info({ req: request, code: body.code, status }, 'request refused');
   res.status(status).json({ error: body });
 };
