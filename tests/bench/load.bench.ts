@@ -7,7 +7,8 @@
  * first at a steady 300 requests per second (the latency at the target rate: Poisson arrivals,
  * open loop, measured from each request's due time — see paced-load.ts for why not autocannon's
  * own rate limit), after a 5-second warm-up at that rate whose p99 is printed beside the row,
- * then flat out with autocannon (the requests per second the server sustains).
+ * then flat out with autocannon (the requests per second the server sustains); the restarted
+ * server of the last part gets the same warm-up.
  * The JSON runs are made once more while two audits run in the background (started through the
  * API, the steady run first while they are young) — in the app's own worker (a configuration
  * `npm start` no longer uses), then in a separate worker process (`npm run worker`, which puts
@@ -209,12 +210,14 @@ function jsonRows(label: string, flat: LoadResult, steady: LoadResult): BenchRow
   ];
 }
 
-/** Two audits started through the API, then each JSON endpoint flat out and at the target rate while they run. */
-async function duringAudits(url: string, endpoints: ReadonlyArray<readonly [string, string]>, sessions: Session[], projectIds: number[], where: string): Promise<BenchRow[]> {
+/** Two audits started through the API, then each JSON endpoint flat out and at the target rate while they run; on a fresh server each endpoint is warmed up first. */
+async function duringAudits(url: string, endpoints: ReadonlyArray<readonly [string, string]>, sessions: Session[], projectIds: number[], where: string, freshServer = false): Promise<BenchRow[]> {
   const rows: BenchRow[] = [];
   const carto = sessions[1];
   const auditOf = async (id: number) => (await (await fetch(`${url}/api/audits/${id}`, { headers: { cookie: carto.cookie } })).json()) as { status: string; progress: number };
   for (const [label, p] of endpoints) {
+    // The same warm-up as the first runs get (see the section's run below), before the audits start.
+    const warmUpP99 = freshServer ? (await paced(url, p, sessions, 99, WARM_UP_SECONDS)).p99 : undefined;
     const ids: number[] = [];
     for (const projectId of projectIds) {
       const res = await fetch(`${url}/api/projects/${projectId}/audits`, {
@@ -231,7 +234,7 @@ async function duringAudits(url: string, endpoints: ReadonlyArray<readonly [stri
     const steady = await paced(url, p, sessions);
     const flat = await load(url, p, sessions);
     const states = await Promise.all(ids.map(auditOf));
-    rows.push(...jsonRows(`${label} during 2 audits ${where}`, flat, steady));
+    rows.push(...jsonRows(`${label} during 2 audits ${where}`, flat, { ...steady, warmUpP99 }));
     rows.push({ run: `  (the 2 audits after ${((performance.now() - t0) / 1000).toFixed(0)} s of load)`, 'req/s': '', 'p50 ms': '', 'p99 ms': '', 'non-2xx/errors': '', target: '', ratio: states.map((s) => `${s.status} ${(s.progress * 100).toFixed(0)}%`).join(', ') });
     // Let them finish before the next endpoint starts its own pair.
     for (const id of ids) {
@@ -302,7 +305,7 @@ const loadSection: BenchSection = {
       server = await startAppProcess({ port, env: { ...environment.env, NODE_ENV: 'production', WARPMETER_NO_INPROCESS_WORKER: '1' }, logFile: path.join(environment.dir, 'app-2.log'), nodeArgs });
       serverPid = server.pid;
       worker = await startWorkerProcess({ ...environment.env, WARPMETER_WORKER_NICE: '19' }, path.join(environment.dir, 'worker.log'));
-      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in a background worker process')));
+      rows.push(...(await duringAudits(url, endpoints, sessions, data.spareProjectIds, 'in a background worker process', true)));
       const [l1, l5] = os.loadavg();
       rows.push({ run: `machine load average at the end: ${l1.toFixed(1)} (1 min), ${l5.toFixed(1)} (5 min) on ${os.cpus().length} cores; at the start ${loadAtStart}`, 'req/s': '', 'p50 ms': '', 'p99 ms': '', 'non-2xx/errors': '', target: '', ratio: '' });
     } finally {
