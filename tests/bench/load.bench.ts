@@ -20,6 +20,7 @@
  * (default 10), WM_BENCH_PROFILE=<dir> writes the server's CPU profile there.
  */
 import fs from 'node:fs';
+import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
@@ -210,23 +211,42 @@ function jsonRows(label: string, flat: LoadResult, steady: LoadResult): BenchRow
   ];
 }
 
+/**
+ * One request on a connection of its own, closed after the answer: the bench's own calls (start
+ * an audit, poll it) come seconds apart, and a pooled keep-alive connection left idle that long
+ * can be closed by the server just as the next call goes out ("other side closed"), or belong to
+ * a server the bench has since restarted.
+ */
+function controlRequest(url: string, init: { method?: string; headers: Record<string, string>; body?: string }): Promise<{ status: number; body: unknown }> {
+  return new Promise((resolve, reject) => {
+    const req = http.request(url, { method: init.method ?? 'GET', headers: init.headers, agent: false }, (res) => {
+      let text = '';
+      res.setEncoding('utf8');
+      res.on('data', (chunk) => (text += chunk));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text ? JSON.parse(text) : null }));
+    });
+    req.on('error', reject);
+    req.end(init.body);
+  });
+}
+
 /** Two audits started through the API, then each JSON endpoint flat out and at the target rate while they run; on a fresh server each endpoint is warmed up first. */
 async function duringAudits(url: string, endpoints: ReadonlyArray<readonly [string, string]>, sessions: Session[], projectIds: number[], where: string, freshServer = false): Promise<BenchRow[]> {
   const rows: BenchRow[] = [];
   const carto = sessions[1];
-  const auditOf = async (id: number) => (await (await fetch(`${url}/api/audits/${id}`, { headers: { cookie: carto.cookie } })).json()) as { status: string; progress: number };
+  const auditOf = async (id: number) => (await controlRequest(`${url}/api/audits/${id}`, { headers: { cookie: carto.cookie } })).body as { status: string; progress: number };
   for (const [label, p] of endpoints) {
     // The same warm-up as the first runs get (see the section's run below), before the audits start.
     const warmUpP99 = freshServer ? (await paced(url, p, sessions, 99, WARM_UP_SECONDS)).p99 : undefined;
     const ids: number[] = [];
     for (const projectId of projectIds) {
-      const res = await fetch(`${url}/api/projects/${projectId}/audits`, {
+      const res = await controlRequest(`${url}/api/projects/${projectId}/audits`, {
         method: 'POST',
         headers: { cookie: carto.cookie, 'x-csrf-token': carto.csrf, 'content-type': 'application/json' },
         body: JSON.stringify({ samples: 200_000, seed: Math.floor(Math.random() * 1e6) }),
       });
-      if (res.status !== 202) throw new Error(`background audit refused: ${res.status} ${await res.text()}`);
-      ids.push(((await res.json()) as { id: number }).id);
+      if (res.status !== 202) throw new Error(`background audit refused: ${res.status} ${JSON.stringify(res.body)}`);
+      ids.push((res.body as { id: number }).id);
     }
     const t0 = performance.now();
     // The steady run first, while the audits are young (they take a few seconds): it is the one
