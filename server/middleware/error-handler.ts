@@ -45,8 +45,8 @@ export const notFoundHandler: RequestHandler = (req, res) => {
 
 /**
  * The one error handler: known errors keep their status; nothing internal reaches the client.
- * It logs through `logger`, the app's fully redacting logger — not `req.log`, which is the
- * access log's, whose redaction covers only the access line's own fields.
+ * A failure's error is logged through `logger`, the app's fully redacting logger — not `req.log`,
+ * the access log's, whose redaction covers only the access line's own fields.
  */
 export const createErrorHandler = (logger: Logger): ErrorRequestHandler => (err, req, res, _next) => {
   if (res.headersSent) return;
@@ -75,8 +75,9 @@ export const createErrorHandler = (logger: Logger): ErrorRequestHandler => (err,
   } else {
     body = { code: 'internal', message: 'Something went wrong on our side. The error was logged.' };
   }
-  const request = { id: req.id, method: req.method, url: req.originalUrl };
-  if (status >= 500) logger.error({ req: request, err }, 'request failed');
-  else logger.info({ req: request, code: body.code, status }, 'request refused');
+  // A refusal carries only its code, so the request's own access logger (already bound to the
+  // request, redacting its fields) is enough and cheaper; a failure's error object gets the full walk.
+  if (status >= 500) logger.error({ req: { id: req.id, method: req.method, url: req.originalUrl }, err }, 'request failed');
+  else (req.log ?? logger).info({ code: body.code, status }, 'request refused');
   res.status(status).json({ error: body });
 };
