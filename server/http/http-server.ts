@@ -28,7 +28,7 @@ function withPrototype<T extends Function>(Base: T, proto: object): T {
  * clustered around them. (Why V8 keeps those objects that long we did not trace; the effect was
  * measured with --trace-gc-nvp.) With the prototype right from the start, Express's
  * `setPrototypeOf` finds it already set and changes nothing (the spec's SameValue check):
- * measured 9.5 → 2.1 MB/s for this app, 2.5 → 0.5 MB/s for a bare Express app. Node's
+ * measured 9.5 → 1.3 MB/s for this app, 2.5 → 0 MB/s for a bare Express app. Node's
  * `createServer` takes the two constructors for this purpose (options IncomingMessage and
  * ServerResponse).
  */
