@@ -5,6 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Region } from '../../server/entities/index.js';
+import { createHttpServer } from '../../server/http/http-server.js';
 import { fixture } from '../fixtures/make-upload-fixtures.js';
 import { sleep } from '../support/process.js';
 import { createStudioWithRoles, type StudioFixture } from '../support/studio-fixture.js';
@@ -30,7 +31,7 @@ beforeAll(async () => {
   t = await createTestApp();
   s = await createStudioWithRoles(t);
   projectId = (await s.cartographer.post('/api/projects', { title: 'Cut uploads', clientName: 'C', purpose: 'reference', scaleBand: 'country' })).body.id;
-  server = t.app.listen(0, '127.0.0.1');
+  server = createHttpServer(t.app).listen(0, '127.0.0.1');
   await new Promise<void>((r) => server.once('listening', () => r()));
   port = (server.address() as AddressInfo).port;
   // A second session of the cartographer, over a real socket.

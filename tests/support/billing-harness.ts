@@ -1,4 +1,3 @@
-import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import pino from 'pino';
 import Stripe from 'stripe';
@@ -8,6 +7,7 @@ import { bootstrap } from '../../server/bootstrap.js';
 import { loadConfig } from '../../server/config.js';
 import type { AppDeps } from '../../server/deps.js';
 import { startFakePay, type FakePay } from '../../server/fakes/pay.js';
+import { createHttpServer } from '../../server/http/http-server.js';
 
 /**
  * An app listening on a free loopback port with its own local payment provider, whose signed
@@ -35,7 +35,7 @@ export async function startBillingHarness(): Promise<BillingHarness> {
   const logger = pino({ level: 'info' }, { write: (line: string) => void lines.push(line) });
   const deps = await bootstrap(config, logger);
   const app = createApp(deps);
-  const server = http.createServer(app);
+  const server = createHttpServer(app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const webhookUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}/api/billing/webhook`;
   fake.webhooks.url = webhookUrl;
