@@ -65,8 +65,19 @@ describe('people page', () => {
   });
 
   it('signs out and back in as the admin', async () => {
+    // On a page slowed to a quarter of its speed, the frame's redirect for an expired session used
+    // to overtake the sign-out's own navigation every time, leaving /sign-in?next=%2Fprojects
+    // (at full speed now and then). Signing out must land on the plain sign-in page regardless.
+    const cdp = await page.context().newCDPSession(page);
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: 4 });
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL('**/sign-in');
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    await cdp.send('Emulation.setCPUThrottlingRate', { rate: 1 });
+    await cdp.detach();
+    expect(new URL(page.url()).pathname + new URL(page.url()).search).toBe('/sign-in');
+
     await page.goto('/studio/people');
     await page.waitForURL('**/sign-in?next=%2Fstudio%2Fpeople');
     await page.getByLabel('E-mail').fill(admin.email);

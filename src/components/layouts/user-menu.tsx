@@ -1,4 +1,3 @@
-import { useNavigate } from 'react-router';
 import { Badge } from '@/components/ui/badge.js';
 import { Button } from '@/components/ui/button.js';
 import { useToast } from '@/components/ui/toast.js';
@@ -10,7 +9,6 @@ import { ROLE_LABELS } from '@/lib/role-labels.js';
 /** Who is signed in, in which studio and role, and the way out. */
 export function UserMenu({ session }: { session: MemberSession }) {
   const signOut = useSignOut();
-  const navigate = useNavigate();
   const { notify } = useToast();
   return (
     <div className="flex items-center gap-3">
@@ -27,7 +25,6 @@ export function UserMenu({ session }: { session: MemberSession }) {
         loading={signOut.isPending}
         onClick={() =>
           signOut.mutate(undefined, {
-            onSuccess: () => navigate('/sign-in', { replace: true }),
             onError: (err) => notify(isApiError(err) ? err.message : 'Signing out failed. Please try again.', 'error'),
           })
         }
