@@ -1,4 +1,5 @@
-import { factorsAt, type ResolvedDefinition } from '../../shared/engine/index.js';
+import type { ResolvedDefinition } from '../../shared/engine/definition-core.js';
+import { factorsAt } from '../../shared/engine/factors.js';
 
 /**
  * Checks the engine's resolver leaves to proj4, which reads "+lat_ts=abc" as NaN and accepts a

@@ -1,4 +1,5 @@
-import { resolveDefinition, type ResolvedDefinition } from '../../shared/engine/definition';
+import type { ResolvedDefinition } from '../../shared/engine/definition-core';
+import { resolveDefinition } from '../candidates/resolve-definition';
 import { prepareRegion } from '../../shared/engine/region/prepare';
 import { regionSummary } from '../../shared/engine/region/summary';
 import { DEFAULT_SAMPLE_COUNT, MAX_SAMPLE_COUNT, sampleRegion } from '../../shared/engine/sampling';

@@ -1,4 +1,4 @@
-import { resolveDefinitionWith } from '../../shared/engine/definition-core';
+import { resolveDefinition } from '../candidates/resolve-definition';
 import { createFactorLineProcessor, type FactorLinesResult } from '../engine-pool/factor-lines';
 import { FactorPool } from '../engine-pool/pool';
 import { intOption, optionValue, parseArgs, UsageError } from './args';
@@ -20,9 +20,7 @@ export async function factorsCommand(argv: string[], io: CliIo): Promise<number>
   if (!definition) throw new UsageError('factors needs --proj <PROJ string | EPSG:n | WKT>');
   if ((args.options.get('proj') ?? []).length > 1) throw new UsageError('factors takes a single --proj');
   const threads = intOption(args, 'threads', 2, 1, 64);
-  // The 8 MB EPSG index is loaded only when an EPSG code asks for it.
-  const lookup = /^\s*epsg:/i.test(definition) ? (await import('../../shared/engine/epsg')).lookupEpsg : undefined;
-  const resolved = resolveDefinitionWith(definition, lookup);
+  const resolved = resolveDefinition(definition);
   const local = createFactorLineProcessor(resolved);
 
   let pool: FactorPool | undefined;

@@ -1,6 +1,9 @@
 import type { MultiPolygon, Polygon } from 'geojson';
 import type { FeaturePick, RegionFormat, RegionInspection, RegionReport } from '../../shared/api/regions.schema.js';
-import { optimise, prepareRegion, regionSummary, suggestCandidates, type Criterion, type MapPurpose, type OptimiseResult, type Proposal } from '../../shared/engine/index.js';
+import { optimise, type Criterion, type OptimiseResult } from '../../shared/engine/optimise.js';
+import { prepareRegion } from '../../shared/engine/region/prepare.js';
+import { regionSummary } from '../../shared/engine/region/summary.js';
+import { suggestCandidates, type MapPurpose, type Proposal } from '../../shared/engine/suggest.js';
 import { checkRegionFile, inspection, pickedReport, pickFeatures, regionName } from '../regions/inspect-file.js';
 import { toGeometry } from '../regions/region-report.js';
 

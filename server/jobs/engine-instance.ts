@@ -1,5 +1,5 @@
 import { ENGINE_VERSION } from '../../shared/engine/version.js';
-import { resolveDefinition } from '../../shared/engine/definition.js';
+import { resolveDefinition } from '../candidates/resolve-definition.js';
 import { FactorPool } from '../engine-pool/pool.js';
 import type { AuditEngine, AuditInput, AuditResult, CandidateResult } from './audit-engine.js';
 

@@ -10,7 +10,10 @@ import type {
   UpdateCandidateInput,
 } from '../../shared/api/candidates.schema.js';
 import { createCandidateSchema } from '../../shared/api/candidates.schema.js';
-import { FAMILIES, resolveDefinition, type MapPurpose, type ResolvedDefinition } from '../../shared/engine/index.js';
+import type { ResolvedDefinition } from '../../shared/engine/definition-core.js';
+import { FAMILIES } from '../../shared/engine/families.js';
+import type { MapPurpose } from '../../shared/engine/suggest.js';
+import { resolveDefinition } from '../candidates/resolve-definition.js';
 import { checkDefinitionSanity } from '../candidates/definition-checks.js';
 import type { EngineRunner } from '../engine-tasks/engine-tasks.js';
 import { Candidate, Region } from '../entities/index.js';
