@@ -9,7 +9,6 @@ import { decisionMail } from '../signoff/mail.js';
 import { buildRecord, sealRecord } from '../signoff/record.js';
 import { isRecipient, roundViews } from '../signoff/round-view.js';
 import { sheetDataFor } from '../signoff/sheet-data.js';
-import { renderSheetPdf } from '../signoff/sheet-pdf.js';
 import { verifyRecord } from '../signoff/verify.js';
 import { recordActivity } from './activity.service.js';
 import { loadProjectFor } from './project-guard.js';
@@ -186,6 +185,8 @@ export async function verifySignOff(deps: AppDeps, actor: Actor, signOffId: numb
 /** The A4 sign-off sheet as PDF bytes, with a file name for the download. */
 export async function signOffSheet(deps: AppDeps, actor: Actor, signOffId: number): Promise<{ pdf: Buffer; fileName: string }> {
   const s = await loadSignOff(deps.dataSource, actor, signOffId);
+  // PDFKit and its fonts load with the first sheet asked for, not with every server process.
+  const { renderSheetPdf } = await import('../signoff/sheet-pdf.js');
   const pdf = await renderSheetPdf(await sheetDataFor(deps, actor, s));
   return { pdf, fileName: `sign-off-${s.projectId}-${s.recordHash.slice(0, 12)}.pdf` };
 }
