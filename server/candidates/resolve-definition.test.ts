@@ -34,6 +34,26 @@ describe('EPSG codes read one file at a time', () => {
     expect(lookupEpsgCode(5070)?.name).toBe('NAD83 / Conus Albers');
   });
 
+  it('leaves Object.prototype alone whatever keys a typed definition carries', () => {
+    // proj4js/proj4js#414 reports prototype pollution (CVE-2022-37578) through crafted definitions,
+    // with no fixed version named; definitions reach proj4 from what people type.
+    const hostile = [
+      '+proj=merc +__proto__=1 +lon_0=3',
+      '+proj=tmerc +constructor=1 +prototype=2 +polluted=yes',
+      'PROJCS["x",GEOGCS["g",DATUM["__proto__",SPHEROID["s",6378137,298.257]],PRIMEM["Greenwich",0],UNIT["degree",0.0174532925199433]],PROJECTION["Mercator_1SP"],PARAMETER["__proto__",5],PARAMETER["polluted",1],UNIT["metre",1]]',
+      'PROJCS["__proto__",GEOGCS["constructor",DATUM["d",SPHEROID["prototype",6378137,298.257]],PRIMEM["Greenwich",0],UNIT["degree",0.0174532925199433]],PROJECTION["__proto__"],UNIT["metre",1]]',
+    ];
+    for (const def of hostile) {
+      try {
+        resolveDefinition(def);
+      } catch {
+        // Refusing is fine; changing every object in the process is not.
+      }
+      expect(Object.keys(Object.prototype), def).toEqual([]);
+      expect(({} as Record<string, unknown>).polluted, def).toBeUndefined();
+    }
+  });
+
   it('keeps the whole index out of the web server, the audit worker and their threads', async () => {
     const entries = ['server/index.ts', 'server/jobs/worker-main.ts', 'server/engine-tasks/engine-task-worker.ts', 'server/engine-pool/factors-worker.ts'];
     const result = await build({
