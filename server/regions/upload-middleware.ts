@@ -12,7 +12,19 @@ export interface UploadedFile {
 // Held in memory (bounded): region files are parsed at once and only the result is stored.
 const single = multer({
   storage: multer.memoryStorage(),
-  limits: { fileSize: UPLOAD_LIMITS.fileBytes, files: 1, fields: 5, fieldSize: 4096, parts: 8 },
+  // Every limit multer's own security advice names: the form has flat, short field names
+  // ("file", "features"), so nested or indexed names (a[b], a[3]) are refused outright.
+  limits: {
+    fileSize: UPLOAD_LIMITS.fileBytes,
+    files: 1,
+    fields: 5,
+    fieldSize: 4096,
+    parts: 8,
+    fieldNameSize: 100,
+    headerPairs: 100,
+    fieldNestingDepth: 0,
+    fieldArrayIndexLimit: 0,
+  },
   defParamCharset: 'utf8',
 } as multer.Options).single('file');
 

@@ -63,6 +63,7 @@ function send(c: UploadCase, route: 'regions/inspect' | 'regions') {
   const opts = { filename: f.name, contentType: f.contentType ?? 'application/octet-stream' };
   req.attach(c.field ?? 'file', f.data, opts);
   if (c.twice) req.attach('file', f.data, opts);
+  for (const [name, value] of Object.entries(c.fields ?? {})) req.field(name, value);
   return req;
 }
 

@@ -17,6 +17,8 @@ export interface UploadCase {
   /** Multipart with the file in another field, or two files. */
   field?: string;
   twice?: boolean;
+  /** Text fields sent beside the file. */
+  fields?: Record<string, string>;
 }
 
 /** mulberry32: a tiny seeded PRNG (public domain), so every run can be replayed from its seed. */
@@ -197,6 +199,12 @@ export async function malformedUploads(seed: number, count: number): Promise<Upl
     async () => ({ kind: 'multipart without a boundary', raw: { data: geojson.subarray(0, 2000), contentType: 'multipart/form-data' } }),
     async () => ({ kind: 'file in the wrong field', file: { data: geojson, name: 'g.geojson' }, field: r.pick(['upload', 'files', 'file[]', 'FILE']) }),
     async () => ({ kind: 'two files', file: { data: geojson, name: 'g.geojson' }, twice: true }),
+    // multer's own security advice: bound field-name length, nesting (a[b][c]) and array indexes (a[999999]).
+    async () => ({
+      kind: 'multipart with hostile field names',
+      file: { data: geojson, name: 'g.geojson' },
+      fields: r.pick<Record<string, string>>([{ 'features[0]': 'all' }, { 'features[a][b][c]': 'all' }, { 'x[999999]': '1' }, { ['f'.repeat(r.int(101, 5000))]: 'all' }]),
+    }),
     async () => ({ kind: 'an image sent as a region', file: { data: Buffer.concat([Buffer.from('89504e470d0a1a0a', 'hex'), randomBytes(r, 800)]), name: r.pick(['map.png', 'map.geojson']), contentType: 'image/png' } }),
   ];
   while (out.length < count) out.push(await r.pick(makers)());
