@@ -10,9 +10,10 @@ interface Waiting {
 
 /**
  * One persistent worker thread for region checks, proposals and optimisation, started on first
- * use (loading the engine and its EPSG index takes about a second, so it is kept) and unref'd so
- * it never holds the process open. Tasks queue in order; a task that runs past its time limit has the thread
- * replaced, and too long a queue is refused with a 503 rather than piling up.
+ * use (loading the engine takes a moment, so it is kept). It is unref'd, but on Node 20 the
+ * worker's internal messaging port still holds the process open, so whoever made the app closes
+ * it (closeSharedEngineThread). Tasks queue in order; a task that runs past its time limit has the
+ * thread replaced, and too long a queue is refused with a 503 rather than piling up.
  */
 export class EngineThread implements EngineRunner {
   private worker: Worker | undefined;
@@ -104,4 +105,11 @@ export class EngineThread implements EngineRunner {
 /** The app's one engine thread, made on first use and kept in deps.services. */
 export function sharedEngineThread(services: Record<string, unknown>): EngineThread {
   return (services.engineThread ??= new EngineThread()) as EngineThread;
+}
+
+/** Ends the app's engine thread, if it was started (a test app or bench closing down). */
+export async function closeSharedEngineThread(services: Record<string, unknown>): Promise<void> {
+  const thread = services.engineThread as EngineThread | undefined;
+  delete services.engineThread;
+  await thread?.close();
 }

@@ -4,6 +4,7 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app.js';
 import { bootstrap } from '../../server/bootstrap.js';
 import { loadConfig } from '../../server/config.js';
+import { closeSharedEngineThread } from '../../server/engine-tasks/engine-thread.js';
 import type { AppDeps } from '../../server/deps.js';
 import type { CaughtMail } from '../../server/fakes/smtp.js';
 
@@ -24,6 +25,7 @@ export async function createTestApp(): Promise<{
     close: async () => {
       const store = deps.services.sessionStore as { close?: () => Promise<void> } | undefined;
       await store?.close?.();
+      await closeSharedEngineThread(deps.services);
       await deps.dataSource.destroy();
     },
   };
