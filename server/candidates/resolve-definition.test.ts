@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
 import { describe, expect, it } from 'vitest';
 import { resolveDefinition as resolveWithWholeIndex } from '../../shared/engine/definition.js';
-import { lookupEpsgCode, resolveDefinition } from './resolve-definition.js';
+import { epsgWkt, lookupEpsgCode, resolveDefinition } from './resolve-definition.js';
 
 // The reference is epsg-index's own all.json, read here as plain JSON.
 const ALL: Record<string, unknown> = JSON.parse(readFileSync(createRequire(import.meta.url).resolve('epsg-index/all.json'), 'utf8'));
@@ -32,6 +32,12 @@ describe('EPSG codes read one file at a time', () => {
     // Asked again, the remembered answers are the same.
     expect(lookupEpsgCode(999_999)).toBeUndefined();
     expect(lookupEpsgCode(5070)?.name).toBe('NAD83 / Conus Albers');
+  });
+
+  it('gives the index’s own WKT for an EPSG definition, and null for anything else', () => {
+    expect(epsgWkt('EPSG:5070')).toBe((ALL['5070'] as { wkt: string }).wkt);
+    expect(epsgWkt('epsg: 3035')).toBe((ALL['3035'] as { wkt: string }).wkt);
+    for (const other of ['EPSG:999999', '+proj=laea +lat_0=52 +lon_0=10', 'EPSG:5070 extra', '']) expect(epsgWkt(other), other).toBeNull();
   });
 
   it('leaves Object.prototype alone whatever keys a typed definition carries', () => {

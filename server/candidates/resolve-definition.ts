@@ -35,6 +35,12 @@ export function lookupEpsgCode(code: number): EpsgEntry | undefined {
   return entry;
 }
 
+/** The index's own WKT for an "EPSG:n" definition, or null (not an EPSG code, unknown, or no WKT in the index). */
+export function epsgWkt(definition: string): string | null {
+  const code = /^\s*epsg:\s*(\d+)\s*$/i.exec(definition)?.[1];
+  return code ? (lookupEpsgCode(Number(code))?.wkt ?? null) : null;
+}
+
 /**
  * The engine's `resolveDefinition` (PROJ string, "EPSG:n" or WKT → the engine's description of a
  * projection; throws an Error naming what is wrong), with EPSG codes looked up as above.

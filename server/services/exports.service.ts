@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { lookupEpsgCode, resolveDefinition } from '../candidates/resolve-definition.js';
+import { epsgWkt, resolveDefinition } from '../candidates/resolve-definition.js';
 import { Candidate } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
 import { notFound, validationFailed } from '../http/errors.js';
@@ -30,7 +30,7 @@ export async function definitionWkt(db: DataSource, actor: Actor, projectId: num
   const c = await loadCandidate(db, actor, projectId, candidateId);
   const resolved = resolveDefinition(c.definition);
   let wkt: string | null = null;
-  if (resolved.kind === 'epsg') wkt = lookupEpsgCode(Number(c.definition.replace(/^epsg:\s*/i, '')))?.wkt ?? null;
+  if (resolved.kind === 'epsg') wkt = epsgWkt(c.definition);
   if (resolved.kind === 'wkt') wkt = c.definition.trim();
   wkt ??= wkt1For(resolved, c.label);
   if (!wkt) {

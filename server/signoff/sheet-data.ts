@@ -2,7 +2,7 @@ import { HEATMAP_FIELDS } from '../../shared/api/audits.schema.js';
 import { SCORECARD_COLUMNS } from '../../shared/api/audit-metrics.js';
 import { metricText } from '../../shared/review/metric-display.js';
 import { PURPOSE_LABELS, SCALE_BAND_LABELS, type MapPurposeName, type ScaleBandName } from '../../shared/api/projects.schema.js';
-import { lookupEpsgCode, resolveDefinition } from '../candidates/resolve-definition.js';
+import { epsgWkt, resolveDefinition } from '../candidates/resolve-definition.js';
 import type { AppDeps } from '../deps.js';
 import { ReviewRound, type SignOff } from '../entities/index.js';
 import type { Actor } from '../http/actor.js';
@@ -18,7 +18,7 @@ const utc = (iso: string) => `${iso.slice(0, 19).replace('T', ' ')} UTC`;
 export function wktOf(definition: string, label: string): string | null {
   try {
     const resolved = resolveDefinition(definition);
-    if (resolved.kind === 'epsg') return lookupEpsgCode(Number(definition.replace(/^epsg:\s*/i, '')))?.wkt ?? null;
+    if (resolved.kind === 'epsg') return epsgWkt(definition);
     if (resolved.kind === 'wkt') return definition.trim();
     return wkt1For(resolved, label);
   } catch {
